@@ -1,0 +1,37 @@
+import { z } from "zod";
+
+/**
+ * Every environment variable the app reads, parsed once. Anything invalid
+ * stops the process at start with the variable's name, instead of failing
+ * later in a request.
+ */
+const envSchema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  /** Any libSQL URL: `file:` for the embedded database, `libsql://` or `http(s)://` for a server. */
+  DATABASE_URL: z
+    .string()
+    .regex(/^(file:|libsql:|https?:|wss?:|:memory:)/, "must be a libSQL URL (file:, libsql:, http(s):, ws(s):)")
+    .default("file:data/joulepath.db"),
+  DATABASE_AUTH_TOKEN: z.string().min(1).optional(),
+  /** Public origin of the console, used in e-mailed links and Origin checks. */
+  APP_URL: z.url().default("http://localhost:3000"),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+export function parseEnv(source: Record<string, string | undefined>): Env {
+  const result = envSchema.safeParse(source);
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Invalid environment:\n${lines.join("\n")}`);
+  }
+  return result.data;
+}
+
+let cached: Env | undefined;
+
+/** The validated environment (read on first use, then kept). */
+export function env(): Env {
+  cached ??= parseEnv(process.env);
+  return cached;
+}

@@ -1,0 +1,8 @@
+/** The server Playwright starts: a fresh database, the built app, the local stand-ins. */
+import { rmSync } from "node:fs";
+import { runApp } from "./run-app";
+
+const file = "data/e2e.db";
+for (const suffix of ["", "-wal", "-shm"]) rmSync(file + suffix, { force: true });
+
+await runApp({ port: Number(process.env.E2E_PORT ?? 3100), databaseUrl: `file:${file}`, build: false });

@@ -1,0 +1,73 @@
+/**
+ * Shared by `npm run demo` and the e2e web server: prepare the database, build
+ * if asked, then run the production server and the local stand-ins together,
+ * stopping all of them when any one stops or on Ctrl-C.
+ */
+import { spawn, type ChildProcess } from "node:child_process";
+import { createDatabase } from "../db/client";
+import { migrateDatabase } from "../db/migrate";
+import { seedDemo } from "../db/seed";
+
+export type RunOptions = {
+  port: number;
+  databaseUrl: string;
+  build: boolean;
+  /** Extra environment for the server and workers. */
+  env?: Record<string, string>;
+  onReady?: (url: string) => void;
+};
+
+const children: ChildProcess[] = [];
+
+function stopAll(code: number): never {
+  for (const c of children) if (c.exitCode === null) c.kill("SIGTERM");
+  process.exit(code);
+}
+
+function start(name: string, command: string, args: string[], env: NodeJS.ProcessEnv): ChildProcess {
+  const child = spawn(command, args, { stdio: "inherit", env });
+  children.push(child);
+  child.on("exit", (code, signal) => {
+    console.log(`[${name}] stopped (${signal ?? `exit ${code}`}); stopping the rest.`);
+    stopAll(code ?? 1);
+  });
+  return child;
+}
+
+async function waitForHealth(url: string, timeoutMs: number): Promise<void> {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    try {
+      const res = await fetch(`${url}/api/health`);
+      if (res.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`The server at ${url} did not answer /api/health within ${timeoutMs / 1000} s.`);
+}
+
+export async function runApp(options: RunOptions): Promise<void> {
+  process.on("SIGINT", () => stopAll(0));
+  process.on("SIGTERM", () => stopAll(0));
+  const env: NodeJS.ProcessEnv = { ...process.env, ...options.env, DATABASE_URL: options.databaseUrl, NEXT_TELEMETRY_DISABLED: "1" };
+
+  const db = createDatabase(options.databaseUrl, process.env.DATABASE_AUTH_TOKEN);
+  await migrateDatabase(db);
+  const added = await seedDemo(db);
+  console.log(`Database ${options.databaseUrl}: migrated; demo seed added ${added.sites} site(s), ${added.zones} zone(s), ${added.devices} device(s).`);
+
+  if (options.build) {
+    console.log("Building the console (next build)…");
+    await new Promise<void>((resolve, reject) => {
+      const b = spawn("npx", ["next", "build"], { stdio: "inherit", env: { ...env, NODE_ENV: "production" } });
+      b.on("exit", (code) => (code === 0 ? resolve() : reject(new Error(`next build failed (exit ${code})`))));
+    });
+  }
+
+  start("app", "npx", ["next", "start", "-p", String(options.port)], { ...env, NODE_ENV: "production" });
+  const url = `http://localhost:${options.port}`;
+  await waitForHealth(url, 60_000);
+  options.onReady?.(url);
+}
