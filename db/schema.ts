@@ -1,6 +1,7 @@
 import { relations } from "drizzle-orm";
-import { integer, real, sqliteTable, text, uniqueIndex, index } from "drizzle-orm/sqlite-core";
+import { integer, real, sqliteTable, text, uniqueIndex, index, primaryKey } from "drizzle-orm/sqlite-core";
 import { DEVICE_KINDS } from "../lib/catalogue/device-kinds";
+import { ROLES } from "../lib/auth/roles";
 
 const createdAt = () =>
   integer("created_at", { mode: "timestamp_ms" })
@@ -55,6 +56,86 @@ export const devices = sqliteTable(
   (t) => [uniqueIndex("devices_site_unicast").on(t.siteId, t.unicastAddress), index("devices_site_zone").on(t.siteId, t.zoneId)],
 );
 
+export const users = sqliteTable("users", {
+  id: text("id").primaryKey(),
+  /** Stored lower-case; unique. */
+  email: text("email").notNull().unique(),
+  name: text("name").notNull(),
+  /** Argon2id PHC string ($argon2id$v=19$m=…,t=…,p=…$salt$hash). */
+  passwordHash: text("password_hash").notNull(),
+  createdAt: createdAt(),
+});
+
+/** lucia's session table: expires_at in Unix seconds, as its SQLite adapter expects. */
+export const sessions = sqliteTable("sessions", {
+  id: text("id").primaryKey(),
+  userId: text("user_id")
+    .notNull()
+    .references(() => users.id, { onDelete: "cascade" }),
+  expiresAt: integer("expires_at").notNull(),
+});
+
+export const memberships = sqliteTable(
+  "memberships",
+  {
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: text("role", { enum: ROLES }).notNull(),
+    /** For occupants: the zones they see and may recall scenes in; null means the whole site. */
+    zoneIds: text("zone_ids", { mode: "json" }).$type<string[] | null>(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.siteId, t.userId] }), index("memberships_user").on(t.userId)],
+);
+
+export const invites = sqliteTable(
+  "invites",
+  {
+    id: text("id").primaryKey(),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    role: text("role", { enum: ROLES }).notNull(),
+    zoneIds: text("zone_ids", { mode: "json" }).$type<string[] | null>(),
+    /** SHA-256 of the token in the link; the token itself is never stored. */
+    tokenHash: text("token_hash").notNull().unique(),
+    invitedBy: text("invited_by").references(() => users.id, { onDelete: "set null" }),
+    expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+    acceptedAt: integer("accepted_at", { mode: "timestamp_ms" }),
+    revokedAt: integer("revoked_at", { mode: "timestamp_ms" }),
+    lastSentAt: integer("last_sent_at", { mode: "timestamp_ms" }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("invites_site").on(t.siteId)],
+);
+
+export const passwordResets = sqliteTable("password_resets", {
+  id: text("id").primaryKey(),
+  userId: text("user_id")
+    .notNull()
+    .references(() => users.id, { onDelete: "cascade" }),
+  tokenHash: text("token_hash").notNull().unique(),
+  expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+  usedAt: integer("used_at", { mode: "timestamp_ms" }),
+  createdAt: createdAt(),
+});
+
+/** Failed sign-ins, keyed "account:<email>" or "client:<address>", for throttling. */
+export const signInFailures = sqliteTable(
+  "sign_in_failures",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    key: text("key").notNull(),
+    at: integer("at", { mode: "timestamp_ms" }).notNull(),
+  },
+  (t) => [index("sign_in_failures_key_at").on(t.key, t.at)],
+);
+
 export const sitesRelations = relations(sites, ({ many }) => ({
   zones: many(zones),
   devices: many(devices),
@@ -76,3 +157,6 @@ export type Zone = typeof zones.$inferSelect;
 export type NewZone = typeof zones.$inferInsert;
 export type Device = typeof devices.$inferSelect;
 export type NewDevice = typeof devices.$inferInsert;
+export type User = typeof users.$inferSelect;
+export type Membership = typeof memberships.$inferSelect;
+export type Invite = typeof invites.$inferSelect;

@@ -15,6 +15,17 @@ const envSchema = z.object({
   DATABASE_AUTH_TOKEN: z.string().min(1).optional(),
   /** Public origin of the console, used in e-mailed links and Origin checks. */
   APP_URL: z.url().default("http://localhost:3000"),
+  /** Where outgoing mail goes; the default is the local mail sink (`workers/mail-sink.ts`). */
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\//, "must be an smtp:// or smtps:// URL")
+    .default("smtp://127.0.0.1:2525"),
+  /** Sender of every e-mail the console sends. */
+  MAIL_FROM: z.string().min(1).default("Joulepath <no-reply@joulepath.invalid>"),
+  /** JSON API of the local mail sink, read by the dev inbox page and the e2e tests. */
+  MAIL_SINK_API_URL: z.url().default("http://127.0.0.1:2526"),
+  /** "1" turns on developer-only pages such as /dev/mail; anything else leaves them 404. */
+  JOULEPATH_DEV_TOOLS: z.enum(["0", "1"]).default("0"),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -7,4 +7,4 @@ const { DATABASE_URL, DATABASE_AUTH_TOKEN } = env();
 const db = createDatabase(DATABASE_URL, DATABASE_AUTH_TOKEN);
 await migrateDatabase(db);
 const added = await seedDemo(db);
-console.log(`Demo seed on ${DATABASE_URL}: added ${added.sites} site(s), ${added.zones} zone(s), ${added.devices} device(s) (existing rows kept).`);
+console.log(`Demo seed on ${DATABASE_URL}: added ${added.sites} site(s), ${added.zones} zone(s), ${added.devices} device(s), ${added.users} user(s) (existing rows kept).`);

@@ -1,3 +1,4 @@
+import { DEMO_PASSWORD, demoUsers } from "../db/seed/demo-users";
 import { runApp } from "./run-app";
 
 const port = Number(process.env.PORT ?? 3000);
@@ -6,6 +7,7 @@ await runApp({
   port,
   databaseUrl: process.env.DATABASE_URL ?? "file:data/joulepath.db",
   build: process.env.DEMO_SKIP_BUILD !== "1",
+  mailSink: { smtpPort: Number(process.env.MAIL_SINK_SMTP_PORT ?? 2525), httpPort: Number(process.env.MAIL_SINK_HTTP_PORT ?? 2526) },
   onReady: (url) => {
     console.log(
       [
@@ -13,7 +15,9 @@ await runApp({
         "Joulepath demo is running.",
         `  Console:  ${url}/sites/larch-lane`,
         `  Health:   ${url}/api/health`,
-        "  Demo site: Larch Lane Studio (invented)",
+        `  Mail sent by the console (local sink): ${url}/dev/mail`,
+        "  Demo site: Larch Lane Studio (invented). Sign in as:",
+        ...demoUsers.map((u) => `    ${u.role.padEnd(10)} ${u.email}  password: ${DEMO_PASSWORD}`),
         "Press Ctrl-C to stop.",
         "",
       ].join("\n"),

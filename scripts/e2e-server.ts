@@ -5,4 +5,10 @@ import { runApp } from "./run-app";
 const file = "data/e2e.db";
 for (const suffix of ["", "-wal", "-shm"]) rmSync(file + suffix, { force: true });
 
-await runApp({ port: Number(process.env.E2E_PORT ?? 3100), databaseUrl: `file:${file}`, build: false });
+await runApp({
+  port: Number(process.env.E2E_PORT ?? 3100),
+  databaseUrl: `file:${file}`,
+  build: false,
+  // Ports apart from the demo's, so the two can run side by side.
+  mailSink: { smtpPort: 2625, httpPort: 2626 },
+});

@@ -12,6 +12,8 @@ export type RunOptions = {
   port: number;
   databaseUrl: string;
   build: boolean;
+  /** Ports of the local mail sink (SMTP and its JSON API). */
+  mailSink: { smtpPort: number; httpPort: number };
   /** Extra environment for the server and workers. */
   env?: Record<string, string>;
   onReady?: (url: string) => void;
@@ -51,12 +53,25 @@ async function waitForHealth(url: string, timeoutMs: number): Promise<void> {
 export async function runApp(options: RunOptions): Promise<void> {
   process.on("SIGINT", () => stopAll(0));
   process.on("SIGTERM", () => stopAll(0));
-  const env: NodeJS.ProcessEnv = { ...process.env, ...options.env, DATABASE_URL: options.databaseUrl, NEXT_TELEMETRY_DISABLED: "1" };
+  const url = `http://localhost:${options.port}`;
+  const { smtpPort, httpPort } = options.mailSink;
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    APP_URL: url,
+    SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+    MAIL_SINK_API_URL: `http://127.0.0.1:${httpPort}`,
+    MAIL_SINK_SMTP_PORT: String(smtpPort),
+    MAIL_SINK_HTTP_PORT: String(httpPort),
+    JOULEPATH_DEV_TOOLS: "1",
+    ...options.env,
+    DATABASE_URL: options.databaseUrl,
+    NEXT_TELEMETRY_DISABLED: "1",
+  };
 
   const db = createDatabase(options.databaseUrl, process.env.DATABASE_AUTH_TOKEN);
   await migrateDatabase(db);
   const added = await seedDemo(db);
-  console.log(`Database ${options.databaseUrl}: migrated; demo seed added ${added.sites} site(s), ${added.zones} zone(s), ${added.devices} device(s).`);
+  console.log(`Database ${options.databaseUrl}: migrated; demo seed added ${added.sites} site(s), ${added.zones} zone(s), ${added.devices} device(s), ${added.users} demo user(s).`);
 
   if (options.build) {
     console.log("Building the console (next build)…");
@@ -66,8 +81,8 @@ export async function runApp(options: RunOptions): Promise<void> {
     });
   }
 
+  start("mail-sink", "npx", ["tsx", "workers/mail-sink.ts"], env);
   start("app", "npx", ["next", "start", "-p", String(options.port)], { ...env, NODE_ENV: "production" });
-  const url = `http://localhost:${options.port}`;
   await waitForHealth(url, 60_000);
   options.onReady?.(url);
 }

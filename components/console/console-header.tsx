@@ -1,14 +1,17 @@
 import Link from "next/link";
+import { SignOutButton } from "@/components/auth/sign-out-button";
+import { ROLE_LABEL, type Role } from "@/lib/auth/roles";
+import { SiteNav, type NavSection } from "./site-nav";
 import { SiteSwitcher } from "./site-switcher";
-import { SiteNav } from "./site-nav";
 
 type Props = {
   sites: { id: string; name: string }[];
-  currentSiteId?: string;
+  user: { name: string };
+  current?: { siteId: string; role: Role; sections: NavSection[] };
 };
 
-/** The console frame's top bar: product name, site switcher and the site's sections. */
-export function ConsoleHeader({ sites, currentSiteId }: Props) {
+/** The console frame's top bar: product name, site switcher, the site's sections, the person. */
+export function ConsoleHeader({ sites, user, current }: Props) {
   return (
     <header className="border-b border-line bg-paper">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
@@ -19,8 +22,15 @@ export function ConsoleHeader({ sites, currentSiteId }: Props) {
           </svg>
           Joulepath
         </Link>
-        {currentSiteId ? <SiteSwitcher sites={sites} currentSiteId={currentSiteId} /> : null}
-        {currentSiteId ? <SiteNav siteId={currentSiteId} /> : null}
+        {current ? <SiteSwitcher sites={sites} currentSiteId={current.siteId} /> : null}
+        {current ? <span className="rounded-full border border-line px-2 py-0.5 text-xs font-semibold text-slate">{ROLE_LABEL[current.role]}</span> : null}
+        {current ? <SiteNav siteId={current.siteId} sections={current.sections} /> : <span className="ml-auto" />}
+        <div className="flex items-center gap-1">
+          <Link href="/account" className="rounded-md px-3 py-1.5 text-sm font-semibold text-slate hover:bg-fog hover:text-ink">
+            {user.name}
+          </Link>
+          <SignOutButton />
+        </div>
       </div>
     </header>
   );

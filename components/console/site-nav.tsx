@@ -3,10 +3,10 @@
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 
-/** Only sections that work are listed; later sections add themselves here. */
-const sections = [{ href: "", label: "Overview" }] as const;
+export type NavSection = { href: string; label: string };
 
-export function SiteNav({ siteId }: { siteId: string }) {
+/** Only sections that work, and that the person's role may open, are listed (the server decides which). */
+export function SiteNav({ siteId, sections }: { siteId: string; sections: NavSection[] }) {
   const pathname = usePathname();
   const base = `/sites/${siteId}`;
   return (

@@ -6,7 +6,7 @@ import { fetchJson } from "@/components/api/fetch-json";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { LoadingPanel } from "@/components/ui/loading-panel";
 import { DEVICE_KIND_INFO, isBatteryFree, isLuminaire, type PowerSource } from "@/lib/catalogue/device-kinds";
-import type { OverviewDevice, SiteOverview } from "@/lib/validation/overview";
+import type { OverviewDevice, SiteOverviewResponse } from "@/lib/validation/overview";
 import { ZoneCard } from "./zone-card";
 
 type PowerFilter = "all" | PowerSource;
@@ -26,7 +26,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
   const [power, setPower] = useState<PowerFilter>("all");
   const query = useQuery({
     queryKey: ["sites", siteId, "overview"],
-    queryFn: () => fetchJson<SiteOverview>(`/api/sites/${encodeURIComponent(siteId)}/overview`),
+    queryFn: () => fetchJson<SiteOverviewResponse>(`/api/sites/${encodeURIComponent(siteId)}/overview`),
   });
 
   const filtered = useMemo(() => {
@@ -39,7 +39,8 @@ export function SiteOverview({ siteId }: { siteId: string }) {
   if (query.isPending) return <LoadingPanel label="Loading zones and devices…" />;
   if (query.isError) return <ErrorPanel title="The overview could not be loaded." detail={query.error.message} onRetry={() => void query.refetch()} />;
 
-  const { site, zones, unassigned } = query.data;
+  const { site, zones, unassigned, role } = query.data;
+  const isOccupant = role === "occupant";
   const all = [...zones.flatMap((z) => z.devices), ...unassigned];
   const stats = [
     { label: "Zones", value: zones.length },
@@ -72,7 +73,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
       <section aria-labelledby="zones-title" className="space-y-4">
         <div className="flex flex-wrap items-end gap-4">
           <h2 id="zones-title" className="mr-auto text-xl font-bold">
-            Zones and devices
+            {isOccupant ? "Your zones" : "Zones and devices"}
           </h2>
           <div className="flex flex-col">
             <label htmlFor={searchId} className="text-sm text-slate">

@@ -1,12 +1,12 @@
-import { asc, eq, sql } from "drizzle-orm";
+import { randomUUID } from "node:crypto";
+import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db";
-import { devices, sites, zones, type Site } from "@/db/schema";
+import { devices, memberships, sites, zones, type Site } from "@/db/schema";
 import type { OverviewDevice, SiteOverview } from "@/lib/validation/overview";
 
-export type SiteSummary = Pick<Site, "id" | "name">;
 
-export async function listSites(): Promise<SiteSummary[]> {
-  return getDb().select({ id: sites.id, name: sites.name }).from(sites).orderBy(asc(sites.name));
+export async function listZoneChoices({ siteId }: { siteId: string }): Promise<{ id: string; name: string }[]> {
+  return getDb().select({ id: zones.id, name: zones.name }).from(zones).where(eq(zones.siteId, siteId)).orderBy(asc(zones.sortOrder), asc(zones.name));
 }
 
 export async function getSite({ siteId }: { siteId: string }): Promise<Site | undefined> {
@@ -14,8 +14,26 @@ export async function getSite({ siteId }: { siteId: string }): Promise<Site | un
   return row;
 }
 
-/** A site's zones with their devices, and devices in no zone. Undefined when the site does not exist. */
-export async function getSiteOverview({ siteId }: { siteId: string }): Promise<SiteOverview | undefined> {
+/** Creates a site and makes its creator the integrator, in one transaction. */
+export async function createSite(input: { userId: string; name: string; address: string; timeZone: string; latitude: number; longitude: number }): Promise<Site> {
+  const { userId, ...fields } = input;
+  const slug = fields.name.toLowerCase().normalize("NFKD").replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 40) || "site";
+  return getDb().transaction(async (tx) => {
+    const [site] = await tx
+      .insert(sites)
+      .values({ id: `${slug}-${randomUUID().slice(0, 8)}`, ...fields })
+      .returning();
+    await tx.insert(memberships).values({ siteId: site.id, userId, role: "integrator", zoneIds: null });
+    return site;
+  });
+}
+
+/**
+ * A site's zones with their devices, and devices in no zone. Undefined when the
+ * site does not exist. `zoneIds` narrows it to those zones (an occupant's view),
+ * leaving out devices in no zone.
+ */
+export async function getSiteOverview({ siteId, zoneIds = null }: { siteId: string; zoneIds?: string[] | null }): Promise<SiteOverview | undefined> {
   const db = getDb();
   const site = await getSite({ siteId });
   if (!site) return undefined;
@@ -23,7 +41,7 @@ export async function getSiteOverview({ siteId }: { siteId: string }): Promise<S
     db
       .select({ id: zones.id, name: zones.name, groupAddress: zones.groupAddress })
       .from(zones)
-      .where(eq(zones.siteId, siteId))
+      .where(zoneIds ? and(eq(zones.siteId, siteId), inArray(zones.id, zoneIds)) : eq(zones.siteId, siteId))
       .orderBy(asc(zones.sortOrder), asc(zones.name)),
     db
       .select({
@@ -35,7 +53,7 @@ export async function getSiteOverview({ siteId }: { siteId: string }): Promise<S
         zoneId: devices.zoneId,
       })
       .from(devices)
-      .where(eq(devices.siteId, siteId))
+      .where(zoneIds ? and(eq(devices.siteId, siteId), inArray(devices.zoneId, zoneIds)) : eq(devices.siteId, siteId))
       .orderBy(asc(devices.unicastAddress)),
   ]);
   const byZone = new Map<string, OverviewDevice[]>();

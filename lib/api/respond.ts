@@ -23,7 +23,7 @@ export function errorResponse(err: unknown): Response {
     return Response.json({ error: "invalid_input", message: "Some fields are not valid.", fields: fieldErrors(err) }, { status: 422 });
   }
   if (err instanceof AppError) {
-    return Response.json({ error: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) }, { status: err.status });
+    return Response.json({ ...err.details, error: err.code, message: err.message }, { status: err.status });
   }
   console.error("[api] unexpected error", err);
   return Response.json({ error: "internal", message: "Something went wrong on the server. It has been logged." }, { status: 500 });

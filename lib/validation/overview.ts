@@ -1,3 +1,4 @@
+import type { Role } from "@/lib/auth/roles";
 import type { DeviceKind } from "@/lib/catalogue/device-kinds";
 
 /** Shape of GET /api/sites/{siteId}/overview, shared by the route and its client. */
@@ -17,3 +18,6 @@ export type SiteOverview = {
   zones: OverviewZone[];
   unassigned: OverviewDevice[];
 };
+
+/** The route adds the caller's role so the view can adapt (occupants see only their zones). */
+export type SiteOverviewResponse = SiteOverview & { role: Role };

@@ -8,9 +8,9 @@ import { seedDemoSite } from "./helpers";
 describe("demo seed on a real SQLite file", () => {
   it("adds the demo site once and changes nothing the second time", async () => {
     const first = await seedDemoSite();
-    expect(first).toEqual({ sites: 1, zones: demoZones.length, devices: demoDevices.length });
+    expect(first).toEqual({ sites: 1, zones: demoZones.length, devices: demoDevices.length, users: 3 });
     const second = await seedDemoSite();
-    expect(second).toEqual({ sites: 0, zones: 0, devices: 0 });
+    expect(second).toEqual({ sites: 0, zones: 0, devices: 0, users: 0 });
     const db = getDb();
     const [[s], [z], [d]] = await Promise.all([
       db.select({ n: count() }).from(sites),

@@ -1,19 +1,13 @@
 import { getSiteOverview } from "@/db/queries/sites";
-import { errorResponse } from "@/lib/api/respond";
+import { siteRoute } from "@/lib/auth/route";
 import { AppError } from "@/lib/errors";
-import { siteParamsSchema } from "@/lib/validation/site";
 
 export const dynamic = "force-dynamic";
 
-type Context = { params: Promise<{ siteId: string }> };
-
-export async function GET(_request: Request, context: Context) {
-  try {
-    const { siteId } = siteParamsSchema.parse(await context.params);
-    const overview = await getSiteOverview({ siteId });
-    if (!overview) throw new AppError("not_found", "No such site.");
-    return Response.json(overview);
-  } catch (err) {
-    return errorResponse(err);
-  }
-}
+/** Zones and devices; an occupant sees only the zones on their membership. */
+export const GET = siteRoute("site.view", async ({ siteId, membership }) => {
+  const zoneIds = membership.role === "occupant" ? membership.zoneIds : null;
+  const overview = await getSiteOverview({ siteId, zoneIds });
+  if (!overview) throw new AppError("not_found", "No such site.");
+  return Response.json({ ...overview, role: membership.role });
+});

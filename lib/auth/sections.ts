@@ -1,0 +1,12 @@
+import { can, type Permission } from "./permissions";
+import type { Role } from "./roles";
+
+/** The console's site sections and the permission each needs; later issues add theirs here. */
+const SECTIONS: { href: string; label: string; permission: Permission }[] = [
+  { href: "", label: "Overview", permission: "site.view" },
+  { href: "/members", label: "Members", permission: "members.manage" },
+];
+
+export function sectionsFor(role: Role) {
+  return SECTIONS.filter((s) => can(role, s.permission)).map(({ href, label }) => ({ href, label }));
+}

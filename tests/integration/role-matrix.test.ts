@@ -1,0 +1,148 @@
+import { beforeAll, beforeEach, describe, expect, it } from "vitest";
+import * as sitesRoute from "@/app/api/sites/route";
+import * as overviewRoute from "@/app/api/sites/[siteId]/overview/route";
+import * as membersRoute from "@/app/api/sites/[siteId]/members/route";
+import * as memberRoute from "@/app/api/sites/[siteId]/members/[userId]/route";
+import * as invitesRoute from "@/app/api/sites/[siteId]/invites/route";
+import * as inviteRoute from "@/app/api/sites/[siteId]/invites/[inviteId]/route";
+import * as resendRoute from "@/app/api/sites/[siteId]/invites/[inviteId]/resend/route";
+import * as passwordRoute from "@/app/api/auth/password/route";
+import { getDb } from "@/db";
+import { createInvite } from "@/db/queries/invites";
+import { upsertMembership } from "@/db/queries/members";
+import { createSite } from "@/db/queries/sites";
+import { DEMO_SITE_ID } from "@/db/seed/demo-site";
+import { sites } from "@/db/schema";
+import { hashToken, newToken } from "@/lib/auth/tokens";
+import { params, req, seedDemoSite, TEST_PASSWORD, userWithSession } from "./helpers";
+
+type Who = "integrator" | "manager" | "occupant" | "outsider" | "signedOut";
+const WHO: Who[] = ["integrator", "manager", "occupant", "outsider", "signedOut"];
+const cookies: Record<Who, string | null> = { integrator: null, manager: null, occupant: null, outsider: null, signedOut: null };
+let targetUserId = "";
+let inviteId = "";
+let integratorId = "";
+
+type Handler = (r: Request, c: { params: Promise<Record<string, string>> }) => Promise<Response>;
+type Case = { name: string; call: (cookie: string | null) => Promise<Response>; expect: Record<Who, number> };
+
+const site = () => params({ siteId: DEMO_SITE_ID });
+const h = (f: unknown) => f as Handler;
+
+const cases: Case[] = [
+  { name: "GET /api/sites", call: (c) => h(sitesRoute.GET)(req("GET", "/api/sites", { cookie: c }), params({})), expect: { integrator: 200, manager: 200, occupant: 200, outsider: 200, signedOut: 401 } },
+  {
+    name: "POST /api/sites",
+    call: (c) => h(sitesRoute.POST)(req("POST", "/api/sites", { cookie: c, body: { name: "Matrix test site", address: "", timeZone: "UTC", latitude: 10, longitude: 10 } }), params({})),
+    expect: { integrator: 201, manager: 201, occupant: 201, outsider: 201, signedOut: 401 },
+  },
+  {
+    name: "GET /api/sites/{id}/overview",
+    call: (c) => h(overviewRoute.GET)(req("GET", `/api/sites/${DEMO_SITE_ID}/overview`, { cookie: c }), site()),
+    expect: { integrator: 200, manager: 200, occupant: 200, outsider: 404, signedOut: 401 },
+  },
+  {
+    name: "GET /api/sites/{id}/members",
+    call: (c) => h(membersRoute.GET)(req("GET", `/api/sites/${DEMO_SITE_ID}/members`, { cookie: c }), site()),
+    expect: { integrator: 200, manager: 403, occupant: 403, outsider: 404, signedOut: 401 },
+  },
+  {
+    name: "PATCH /api/sites/{id}/members/{userId}",
+    call: (c) => h(memberRoute.PATCH)(req("PATCH", `/api/sites/${DEMO_SITE_ID}/members/${targetUserId}`, { cookie: c, body: { role: "manager", zoneIds: null } }), params({ siteId: DEMO_SITE_ID, userId: targetUserId })),
+    expect: { integrator: 200, manager: 403, occupant: 403, outsider: 404, signedOut: 401 },
+  },
+  {
+    name: "DELETE /api/sites/{id}/members/{userId}",
+    call: (c) => h(memberRoute.DELETE)(req("DELETE", `/api/sites/${DEMO_SITE_ID}/members/${targetUserId}`, { cookie: c }), params({ siteId: DEMO_SITE_ID, userId: targetUserId })),
+    expect: { integrator: 200, manager: 403, occupant: 403, outsider: 404, signedOut: 401 },
+  },
+  {
+    name: "POST /api/sites/{id}/invites",
+    call: (c) => h(invitesRoute.POST)(req("POST", `/api/sites/${DEMO_SITE_ID}/invites`, { cookie: c, body: { email: "matrix-invitee@example.invalid", role: "occupant", zoneIds: null } }), site()),
+    expect: { integrator: 201, manager: 403, occupant: 403, outsider: 404, signedOut: 401 },
+  },
+  {
+    name: "DELETE /api/sites/{id}/invites/{inviteId}",
+    call: (c) => h(inviteRoute.DELETE)(req("DELETE", `/api/sites/${DEMO_SITE_ID}/invites/${inviteId}`, { cookie: c }), params({ siteId: DEMO_SITE_ID, inviteId })),
+    expect: { integrator: 200, manager: 403, occupant: 403, outsider: 404, signedOut: 401 },
+  },
+  {
+    name: "POST /api/sites/{id}/invites/{inviteId}/resend",
+    call: (c) => h(resendRoute.POST)(req("POST", `/api/sites/${DEMO_SITE_ID}/invites/${inviteId}/resend`, { cookie: c }), params({ siteId: DEMO_SITE_ID, inviteId })),
+    expect: { integrator: 200, manager: 403, occupant: 403, outsider: 404, signedOut: 401 },
+  },
+  {
+    name: "POST /api/auth/password",
+    call: (c) => h(passwordRoute.POST)(req("POST", "/api/auth/password", { cookie: c, body: { currentPassword: TEST_PASSWORD, newPassword: TEST_PASSWORD } }), params({})),
+    expect: { integrator: 200, manager: 200, occupant: 200, outsider: 200, signedOut: 401 },
+  },
+];
+
+beforeAll(async () => {
+  await seedDemoSite();
+  const integrator = await userWithSession("m-integrator@example.invalid", { siteId: DEMO_SITE_ID, role: "integrator" });
+  integratorId = integrator.userId;
+  cookies.integrator = integrator.cookie;
+  cookies.manager = (await userWithSession("m-manager@example.invalid", { siteId: DEMO_SITE_ID, role: "manager" })).cookie;
+  cookies.occupant = (await userWithSession("m-occupant@example.invalid", { siteId: DEMO_SITE_ID, role: "occupant" })).cookie;
+  const outsider = await userWithSession("m-outsider@example.invalid");
+  cookies.outsider = outsider.cookie;
+  // The outsider is integrator of a site of their own, so "another site's member" is tested, not just "nobody".
+  await createSite({ userId: outsider.userId, name: "Elsewhere", address: "", timeZone: "UTC", latitude: 0, longitude: 0 });
+});
+
+beforeEach(async () => {
+  // Fresh targets for every call, so a 2xx in one case cannot change the next.
+  targetUserId = (await userWithSession("m-target@example.invalid", { siteId: DEMO_SITE_ID, role: "occupant" })).userId;
+  const now = new Date();
+  inviteId = (await createInvite({ siteId: DEMO_SITE_ID, email: `m-pending-${Math.random()}@example.invalid`, role: "occupant", zoneIds: null, tokenHash: hashToken(newToken()), invitedBy: integratorId, expiresAt: new Date(now.getTime() + 3600_000), now })).id;
+});
+
+describe("role × endpoint matrix (server-side checks)", () => {
+  for (const c of cases) {
+    for (const who of WHO) {
+      it(`${c.name} as ${who} → ${c.expect[who]}`, async () => {
+        const res = await c.call(cookies[who]);
+        expect(res.status).toBe(c.expect[who]);
+      });
+    }
+  }
+
+  it("refuses a cookie-authenticated change without this console's Origin (403), and writes nothing", async () => {
+    const before = (await getDb().select().from(sites)).length;
+    const res = await h(sitesRoute.POST)(
+      req("POST", "/api/sites", { cookie: cookies.integrator, origin: "https://evil.example.invalid", body: { name: "Forged", address: "", timeZone: "UTC", latitude: 0, longitude: 0 } }),
+      params({}),
+    );
+    expect(res.status).toBe(403);
+    const missing = await h(sitesRoute.POST)(req("POST", "/api/sites", { cookie: cookies.integrator, origin: null, body: { name: "Forged", address: "", timeZone: "UTC", latitude: 0, longitude: 0 } }), params({}));
+    expect(missing.status).toBe(403);
+    expect((await getDb().select().from(sites)).length).toBe(before);
+  });
+
+  it("never removes or demotes the last integrator (409)", async () => {
+    const solo = await userWithSession("m-solo@example.invalid");
+    const own = await createSite({ userId: solo.userId, name: "Solo site", address: "", timeZone: "UTC", latitude: 0, longitude: 0 });
+    const del = await h(memberRoute.DELETE)(req("DELETE", `/api/sites/${own.id}/members/${solo.userId}`, { cookie: solo.cookie }), params({ siteId: own.id, userId: solo.userId }));
+    expect(del.status).toBe(409);
+    const demote = await h(memberRoute.PATCH)(req("PATCH", `/api/sites/${own.id}/members/${solo.userId}`, { cookie: solo.cookie, body: { role: "occupant", zoneIds: null } }), params({ siteId: own.id, userId: solo.userId }));
+    expect(demote.status).toBe(409);
+    // With a second integrator, stepping down works.
+    const other = await userWithSession("m-second@example.invalid");
+    await upsertMembership({ siteId: own.id, userId: other.userId, role: "integrator", zoneIds: null });
+    const ok = await h(memberRoute.PATCH)(req("PATCH", `/api/sites/${own.id}/members/${solo.userId}`, { cookie: solo.cookie, body: { role: "manager", zoneIds: null } }), params({ siteId: own.id, userId: solo.userId }));
+    expect(ok.status).toBe(200);
+  });
+
+  it("rejects unknown keys, wrong types and over-long fields with 422 and field messages", async () => {
+    const res = await h(invitesRoute.POST)(req("POST", `/api/sites/${DEMO_SITE_ID}/invites`, { cookie: cookies.integrator, body: { email: "x".repeat(300) + "@example.invalid", role: "owner", extra: 1 } }), site());
+    expect(res.status).toBe(422);
+    const body = await res.json();
+    expect(Object.keys(body.fields)).toEqual(expect.arrayContaining(["email", "role"]));
+    const bad = await h(sitesRoute.POST)(req("POST", "/api/sites", { cookie: cookies.integrator, body: { name: "", timeZone: "Mars/Olympus", latitude: 91, longitude: "east" } }), params({}));
+    expect(bad.status).toBe(422);
+    expect(Object.keys((await bad.json()).fields).sort()).toEqual(["latitude", "longitude", "name", "timeZone"]);
+    const notJson = await h(sitesRoute.POST)(new Request("http://localhost:3000/api/sites", { method: "POST", headers: { cookie: cookies.integrator!, origin: "http://localhost:3000" }, body: "{oops" }), params({}));
+    expect(notJson.status).toBe(400);
+  });
+});
