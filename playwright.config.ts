@@ -8,7 +8,7 @@ export default defineConfig({
   workers: 1,
   retries: 0,
   reporter: [["list"]],
-  timeout: 30_000,
+  timeout: 60_000,
   use: {
     baseURL: `http://localhost:${port}`,
     trace: "off",

@@ -49,11 +49,75 @@ export const devices = sqliteTable(
     unicastAddress: integer("unicast_address").notNull(),
     /** Number of elements; the device owns unicastAddress … unicastAddress + elementCount − 1. */
     elementCount: integer("element_count").notNull().default(1),
-    /** Kind-specific settings (buttons, energy profile …) as JSON, parsed by lib/validation. */
+    floorId: text("floor_id").references(() => floors.id, { onDelete: "set null" }),
+    /** Position on the floor plan in metres from the plan's top-left corner. */
+    x: real("x"),
+    y: real("y"),
+    /** Kind-specific settings (buttons, energy profile …) as JSON, parsed by lib/catalogue/profiles. */
     profile: text("profile", { mode: "json" }).$type<Record<string, unknown>>().notNull().default({}),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("devices_site_unicast").on(t.siteId, t.unicastAddress), index("devices_site_zone").on(t.siteId, t.zoneId)],
+  (t) => [
+    uniqueIndex("devices_site_unicast").on(t.siteId, t.unicastAddress),
+    uniqueIndex("devices_site_name").on(t.siteId, t.name),
+    index("devices_site_zone").on(t.siteId, t.zoneId),
+  ],
+);
+
+/** Uploaded files (floor plans). Stored on disk under a random name; served only to members. */
+export const uploads = sqliteTable("uploads", {
+  id: text("id").primaryKey(),
+  siteId: text("site_id")
+    .notNull()
+    .references(() => sites.id, { onDelete: "cascade" }),
+  storedName: text("stored_name").notNull().unique(),
+  mimeType: text("mime_type").notNull(),
+  byteSize: integer("byte_size").notNull(),
+  width: integer("width").notNull(),
+  height: integer("height").notNull(),
+  originalName: text("original_name").notNull().default(""),
+  createdAt: createdAt(),
+});
+
+export const floors = sqliteTable(
+  "floors",
+  {
+    id: text("id").primaryKey(),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    sortOrder: integer("sort_order").notNull().default(0),
+    planUploadId: text("plan_upload_id").references(() => uploads.id, { onDelete: "set null" }),
+    /** Plan scale, set from two points and the distance between them; null until set. */
+    pixelsPerMetre: real("pixels_per_metre"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("floors_site_name").on(t.siteId, t.name)],
+);
+
+export type SceneLevel = { zoneId?: string; deviceId?: string; level: number };
+
+export const scenes = sqliteTable(
+  "scenes",
+  {
+    id: text("id").primaryKey(),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    /** Mesh scene number 1–65535 (0 is prohibited, Mesh Model §5.1.3.1). */
+    number: integer("number").notNull(),
+    name: text("name").notNull(),
+    fadeMs: integer("fade_ms").notNull().default(0),
+    isOccupantRecallable: integer("is_occupant_recallable", { mode: "boolean" }).notNull().default(false),
+    /** Levels in percent per zone or per luminaire; a luminaire entry overrides its zone's. */
+    levels: text("levels", { mode: "json" }).$type<SceneLevel[]>().notNull().default([]),
+    createdAt: createdAt(),
+    updatedAt: integer("updated_at", { mode: "timestamp_ms" })
+      .notNull()
+      .$defaultFn(() => new Date()),
+  },
+  (t) => [uniqueIndex("scenes_site_number").on(t.siteId, t.number), uniqueIndex("scenes_site_name").on(t.siteId, t.name)],
 );
 
 export const users = sqliteTable("users", {
@@ -160,3 +224,6 @@ export type NewDevice = typeof devices.$inferInsert;
 export type User = typeof users.$inferSelect;
 export type Membership = typeof memberships.$inferSelect;
 export type Invite = typeof invites.$inferSelect;
+export type Upload = typeof uploads.$inferSelect;
+export type Floor = typeof floors.$inferSelect;
+export type Scene = typeof scenes.$inferSelect;

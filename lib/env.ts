@@ -24,6 +24,8 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(1).default("Joulepath <no-reply@joulepath.invalid>"),
   /** JSON API of the local mail sink, read by the dev inbox page and the e2e tests. */
   MAIL_SINK_API_URL: z.url().default("http://127.0.0.1:2526"),
+  /** Where uploaded floor plans are stored (created if missing); files get random names. */
+  UPLOAD_DIR: z.string().min(1).default("data/uploads"),
   /** "1" turns on developer-only pages such as /dev/mail; anything else leaves them 404. */
   JOULEPATH_DEV_TOOLS: z.enum(["0", "1"]).default("0"),
 });

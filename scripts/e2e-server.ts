@@ -3,7 +3,10 @@ import { rmSync } from "node:fs";
 import { runApp } from "./run-app";
 
 const file = "data/e2e.db";
+const uploadDir = "data/e2e-uploads";
 for (const suffix of ["", "-wal", "-shm"]) rmSync(file + suffix, { force: true });
+rmSync(uploadDir, { recursive: true, force: true });
+process.env.UPLOAD_DIR = uploadDir;
 
 await runApp({
   port: Number(process.env.E2E_PORT ?? 3100),

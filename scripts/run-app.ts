@@ -4,6 +4,7 @@
  * stopping all of them when any one stops or on Ctrl-C.
  */
 import { spawn, type ChildProcess } from "node:child_process";
+import { createServer } from "node:net";
 import { createDatabase } from "../db/client";
 import { migrateDatabase } from "../db/migrate";
 import { seedDemo } from "../db/seed";
@@ -22,6 +23,7 @@ export type RunOptions = {
 const children: ChildProcess[] = [];
 
 function stopAll(code: number): never {
+  // Children share our process group (Ctrl-C reaches them too); tsx passes SIGTERM on to its node child.
   for (const c of children) if (c.exitCode === null) c.kill("SIGTERM");
   process.exit(code);
 }
@@ -50,6 +52,15 @@ async function waitForHealth(url: string, timeoutMs: number): Promise<void> {
   throw new Error(`The server at ${url} did not answer /api/health within ${timeoutMs / 1000} s.`);
 }
 
+/** Refuses to start on a busy port, so a server left running elsewhere is never mistaken for ours. */
+async function assertPortFree(port: number, what: string): Promise<void> {
+  await new Promise<void>((resolve, reject) => {
+    const probe = createServer();
+    probe.once("error", () => reject(new Error(`Port ${port} (${what}) is already in use. Stop the other process, or choose another port (PORT, MAIL_SINK_SMTP_PORT, MAIL_SINK_HTTP_PORT).`)));
+    probe.listen(port, () => probe.close(() => resolve()));
+  });
+}
+
 export async function runApp(options: RunOptions): Promise<void> {
   process.on("SIGINT", () => stopAll(0));
   process.on("SIGTERM", () => stopAll(0));
@@ -68,6 +79,15 @@ export async function runApp(options: RunOptions): Promise<void> {
     NEXT_TELEMETRY_DISABLED: "1",
   };
 
+  try {
+    await assertPortFree(options.port, "console");
+    await assertPortFree(smtpPort, "mail sink SMTP");
+    await assertPortFree(httpPort, "mail sink API");
+  } catch (err) {
+    console.error(err instanceof Error ? err.message : err);
+    process.exit(1);
+  }
+
   const db = createDatabase(options.databaseUrl, process.env.DATABASE_AUTH_TOKEN);
   await migrateDatabase(db);
   const added = await seedDemo(db);
@@ -81,8 +101,8 @@ export async function runApp(options: RunOptions): Promise<void> {
     });
   }
 
-  start("mail-sink", "npx", ["tsx", "workers/mail-sink.ts"], env);
-  start("app", "npx", ["next", "start", "-p", String(options.port)], { ...env, NODE_ENV: "production" });
+  start("mail-sink", "node_modules/.bin/tsx", ["workers/mail-sink.ts"], env);
+  start("app", "node_modules/.bin/next", ["start", "-p", String(options.port)], { ...env, NODE_ENV: "production" });
   await waitForHealth(url, 60_000);
   options.onReady?.(url);
 }

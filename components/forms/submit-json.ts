@@ -9,7 +9,7 @@ export async function submitJson<T extends FieldValues, R = unknown>(
   url: string,
   body: unknown,
   setError: UseFormSetError<T>,
-  method: "POST" | "PATCH" | "DELETE" = "POST",
+  method: "POST" | "PATCH" | "PUT" | "DELETE" = "POST",
 ): Promise<R | undefined> {
   try {
     return await fetchJson<R>(url, { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });

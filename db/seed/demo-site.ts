@@ -1,5 +1,5 @@
 import type { DeviceKind } from "../../lib/catalogue/device-kinds";
-import type { NewDevice, NewSite, NewZone } from "../schema";
+import type { NewDevice, NewSite, NewZone, SceneLevel } from "../schema";
 
 /**
  * The invented demo site: a small craft gallery with a shop, a workshop with a
@@ -72,12 +72,21 @@ const deviceSeeds: DeviceSeed[] = [
   { key: "panel-flat", name: "Flat notice panel", kind: "notice-panel", zone: "flat" },
 ];
 
+// Hoisted so buildDevices can use the table defined further down.
+function demoPositionOf(key: string) {
+  return demoPositions[key];
+}
+
 function buildDevices(): NewDevice[] {
   let next = 0x0001;
   return deviceSeeds.map((d) => {
     const elementCount = d.elements ?? 1;
+    const pos = demoPositionOf(d.key);
     const device: NewDevice = {
       id: `${DEMO_SITE_ID}-dev-${d.key}`,
+      floorId: pos ? `${DEMO_SITE_ID}-floor-${pos.floor}` : null,
+      x: pos?.x ?? null,
+      y: pos?.y ?? null,
       siteId: DEMO_SITE_ID,
       zoneId: d.zone ? `${DEMO_SITE_ID}-zone-${d.zone}` : null,
       name: d.name,
@@ -90,5 +99,76 @@ function buildDevices(): NewDevice[] {
     return device;
   });
 }
+
+
+
+const zone = (key: string) => `${DEMO_SITE_ID}-zone-${key}`;
+const dev = (key: string) => `${DEMO_SITE_ID}-dev-${key}`;
+
+export type DemoScene = { id: string; siteId: string; number: number; name: string; fadeMs: number; isOccupantRecallable: boolean; levels: SceneLevel[] };
+
+export const demoScenes: DemoScene[] = [
+  {
+    id: `${DEMO_SITE_ID}-scene-shop-open`,
+    siteId: DEMO_SITE_ID,
+    number: 1,
+    name: "Shop open",
+    fadeMs: 2500,
+    isOccupantRecallable: false,
+    levels: [{ zoneId: zone("shop"), level: 80 }, { deviceId: dev("track-shop-1"), level: 100 }, { deviceId: dev("track-shop-2"), level: 100 }, { zoneId: zone("window"), level: 70 }, { zoneId: zone("textile"), level: 40 }],
+  },
+  { id: `${DEMO_SITE_ID}-scene-closed`, siteId: DEMO_SITE_ID, number: 2, name: "Closed", fadeMs: 10_000, isOccupantRecallable: false, levels: [{ zoneId: zone("shop"), level: 0 }, { zoneId: zone("window"), level: 20 }, { zoneId: zone("textile"), level: 0 }, { zoneId: zone("workshop"), level: 0 }] },
+  { id: `${DEMO_SITE_ID}-scene-workshop`, siteId: DEMO_SITE_ID, number: 3, name: "Workshop bright", fadeMs: 1000, isOccupantRecallable: false, levels: [{ zoneId: zone("workshop"), level: 100 }] },
+  { id: `${DEMO_SITE_ID}-scene-path`, siteId: DEMO_SITE_ID, number: 4, name: "Path welcome", fadeMs: 2500, isOccupantRecallable: true, levels: [{ zoneId: zone("path"), level: 70 }] },
+  { id: `${DEMO_SITE_ID}-scene-flat-evening`, siteId: DEMO_SITE_ID, number: 5, name: "Flat evening", fadeMs: 6200, isOccupantRecallable: true, levels: [{ deviceId: dev("dl-flat-1"), level: 45 }, { deviceId: dev("dl-flat-2"), level: 25 }] },
+  { id: `${DEMO_SITE_ID}-scene-flat-off`, siteId: DEMO_SITE_ID, number: 6, name: "Flat off", fadeMs: 2500, isOccupantRecallable: true, levels: [{ zoneId: zone("flat"), level: 0 }] },
+  {
+    id: `${DEMO_SITE_ID}-scene-escape`,
+    siteId: DEMO_SITE_ID,
+    number: 7,
+    name: "Escape route",
+    fadeMs: 0,
+    isOccupantRecallable: false,
+    levels: [{ zoneId: zone("escape"), level: 100 }, { zoneId: zone("path"), level: 100 }, { zoneId: zone("shop"), level: 0 }, { zoneId: zone("window"), level: 0 }, { zoneId: zone("workshop"), level: 0 }, { zoneId: zone("textile"), level: 0 }, { zoneId: zone("flat"), level: 0 }],
+  },
+];
+
+/** Floors with the plans drawn by scripts/make-demo-plans.ts (50 px per metre). */
+export const demoFloors = [
+  { id: `${DEMO_SITE_ID}-floor-ground`, siteId: DEMO_SITE_ID, name: "Ground floor", sortOrder: 0, planFile: "ground-floor.png", pixelsPerMetre: 50 },
+  { id: `${DEMO_SITE_ID}-floor-upper`, siteId: DEMO_SITE_ID, name: "Upper floor (flat)", sortOrder: 1, planFile: "upper-floor.png", pixelsPerMetre: 50 },
+] as const;
+
+/** Where each device sits, in metres from the plan's top-left corner. */
+export const demoPositions: Record<string, { floor: "ground" | "upper"; x: number; y: number }> = {
+  "rocker-shop-door": { floor: "ground", x: 1.2, y: 4.6 },
+  "call-counter": { floor: "ground", x: 8.5, y: 8.8 },
+  "dl-shop-1": { floor: "ground", x: 3, y: 6 },
+  "dl-shop-2": { floor: "ground", x: 5.5, y: 6 },
+  "dl-shop-3": { floor: "ground", x: 8, y: 6 },
+  "track-shop-1": { floor: "ground", x: 3.5, y: 8.5 },
+  "track-shop-2": { floor: "ground", x: 7, y: 8.5 },
+  "lux-window": { floor: "ground", x: 9.5, y: 3 },
+  "strip-window": { floor: "ground", x: 5.5, y: 3.2 },
+  "rocker-workshop": { floor: "ground", x: 11, y: 3.2 },
+  "dl-workshop-1": { floor: "ground", x: 14, y: 6 },
+  "dl-workshop-2": { floor: "ground", x: 18, y: 6 },
+  "climate-workshop": { floor: "ground", x: 20.8, y: 8.5 },
+  "fan-workshop": { floor: "ground", x: 20.8, y: 3.2 },
+  "climate-case-a": { floor: "ground", x: 13, y: 12.5 },
+  "climate-case-b": { floor: "ground", x: 18.5, y: 12.5 },
+  "driver-textile": { floor: "ground", x: 16, y: 11 },
+  "sensor-path": { floor: "ground", x: 2, y: 1 },
+  "light-path-1": { floor: "ground", x: 7, y: 1.2 },
+  "light-path-2": { floor: "ground", x: 15, y: 1.2 },
+  "contact-back": { floor: "ground", x: 8.75, y: 13.8 },
+  "fire-input": { floor: "ground", x: 1.2, y: 13.5 },
+  "dl-escape-1": { floor: "ground", x: 2.5, y: 12 },
+  "dl-escape-2": { floor: "ground", x: 7.5, y: 12 },
+  "rocker-flat": { floor: "upper", x: 1.2, y: 5 },
+  "dl-flat-1": { floor: "upper", x: 4, y: 3 },
+  "dl-flat-2": { floor: "upper", x: 9.5, y: 3 },
+  "panel-flat": { floor: "upper", x: 7, y: 1 },
+};
 
 export const demoDevices: NewDevice[] = buildDevices();

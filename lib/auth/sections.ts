@@ -4,6 +4,9 @@ import type { Role } from "./roles";
 /** The console's site sections and the permission each needs; later issues add theirs here. */
 const SECTIONS: { href: string; label: string; permission: Permission }[] = [
   { href: "", label: "Overview", permission: "site.view" },
+  { href: "/devices", label: "Devices", permission: "inventory.view" },
+  { href: "/plan", label: "Plan", permission: "inventory.view" },
+  { href: "/scenes", label: "Scenes", permission: "scenes.edit" },
   { href: "/members", label: "Members", permission: "members.manage" },
 ];
 

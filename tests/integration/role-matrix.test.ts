@@ -7,6 +7,13 @@ import * as invitesRoute from "@/app/api/sites/[siteId]/invites/route";
 import * as inviteRoute from "@/app/api/sites/[siteId]/invites/[inviteId]/route";
 import * as resendRoute from "@/app/api/sites/[siteId]/invites/[inviteId]/resend/route";
 import * as passwordRoute from "@/app/api/auth/password/route";
+import * as devicesRoute from "@/app/api/sites/[siteId]/devices/route";
+import * as deviceRoute from "@/app/api/sites/[siteId]/devices/[deviceId]/route";
+import * as bulkZoneRoute from "@/app/api/sites/[siteId]/devices/bulk-zone/route";
+import * as zonesRoute from "@/app/api/sites/[siteId]/zones/route";
+import * as zoneRoute from "@/app/api/sites/[siteId]/zones/[zoneId]/route";
+import * as scenesRoute from "@/app/api/sites/[siteId]/scenes/route";
+import * as sceneRoute from "@/app/api/sites/[siteId]/scenes/[sceneId]/route";
 import { getDb } from "@/db";
 import { createInvite } from "@/db/queries/invites";
 import { upsertMembership } from "@/db/queries/members";
@@ -29,7 +36,27 @@ type Case = { name: string; call: (cookie: string | null) => Promise<Response>; 
 const site = () => params({ siteId: DEMO_SITE_ID });
 const h = (f: unknown) => f as Handler;
 
+const uniq = () => Math.random().toString(36).slice(2, 8);
+const read = { integrator: 200, manager: 200, occupant: 403, outsider: 404, signedOut: 401 };
+const integratorOnly = { integrator: 200, manager: 403, occupant: 403, outsider: 404, signedOut: 401 };
+const managers = { integrator: 200, manager: 200, occupant: 403, outsider: 404, signedOut: 401 };
+const created = (e: Record<Who, number>) => ({ ...e, integrator: e.integrator === 200 ? 201 : e.integrator, manager: e.manager === 200 ? 201 : e.manager });
+const dev = `${DEMO_SITE_ID}-dev-dl-shop-1`;
+const zoneId = `${DEMO_SITE_ID}-zone-window`;
+const sceneId = `${DEMO_SITE_ID}-scene-workshop`;
+
 const cases: Case[] = [
+  { name: "GET devices", call: (c) => h(devicesRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: read },
+  { name: "POST devices", call: (c) => h(devicesRoute.POST)(req("POST", "/x", { cookie: c, body: { name: `M ${uniq()}`, kind: "mesh-luminaire" } }), site()), expect: created(integratorOnly) },
+  { name: "GET device", call: (c) => h(deviceRoute.GET)(req("GET", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, deviceId: dev })), expect: read },
+  { name: "PATCH device", call: (c) => h(deviceRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { name: "Shop downlight 1" } }), params({ siteId: DEMO_SITE_ID, deviceId: dev })), expect: integratorOnly },
+  { name: "POST devices/bulk-zone", call: (c) => h(bulkZoneRoute.POST)(req("POST", "/x", { cookie: c, body: { deviceIds: [dev], zoneId: `${DEMO_SITE_ID}-zone-shop` } }), site()), expect: integratorOnly },
+  { name: "GET zones", call: (c) => h(zonesRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: read },
+  { name: "POST zones", call: (c) => h(zonesRoute.POST)(req("POST", "/x", { cookie: c, body: { name: `Z ${uniq()}` } }), site()), expect: created(integratorOnly) },
+  { name: "PATCH zone", call: (c) => h(zoneRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { name: "Shop window" } }), params({ siteId: DEMO_SITE_ID, zoneId })), expect: integratorOnly },
+  { name: "GET scenes", call: (c) => h(scenesRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: { ...read, occupant: 200 } },
+  { name: "POST scenes", call: (c) => h(scenesRoute.POST)(req("POST", "/x", { cookie: c, body: { number: 100 + Math.floor(Math.random() * 60000), name: `S ${uniq()}`, fadeMs: 0, levels: [] } }), site()), expect: created(managers) },
+  { name: "PUT scene", call: (c) => h(sceneRoute.PUT)(req("PUT", "/x", { cookie: c, body: { number: 3, name: "Workshop bright", fadeMs: 1000, isOccupantRecallable: false, levels: [] } }), params({ siteId: DEMO_SITE_ID, sceneId })), expect: managers },
   { name: "GET /api/sites", call: (c) => h(sitesRoute.GET)(req("GET", "/api/sites", { cookie: c }), params({})), expect: { integrator: 200, manager: 200, occupant: 200, outsider: 200, signedOut: 401 } },
   {
     name: "POST /api/sites",

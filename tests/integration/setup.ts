@@ -8,6 +8,8 @@ import { startMailSink } from "@/workers/mail-sink";
 // A throwaway SQLite file per test file: real libSQL, real migrations, never a mock.
 const file = path.join(os.tmpdir(), `joulepath-it-${randomUUID()}.db`);
 process.env.DATABASE_URL = `file:${file}`;
+const uploadDir = path.join(os.tmpdir(), `joulepath-it-uploads-${randomUUID()}`);
+process.env.UPLOAD_DIR = uploadDir;
 delete (globalThis as { joulepathDb?: unknown }).joulepathDb;
 
 // A real SMTP sink on free loopback ports, so mail-sending code runs for real.
@@ -23,4 +25,5 @@ beforeAll(async () => {
 afterAll(async () => {
   await sink.close();
   for (const suffix of ["", "-wal", "-shm"]) rmSync(file + suffix, { force: true });
+  rmSync(uploadDir, { recursive: true, force: true });
 });
