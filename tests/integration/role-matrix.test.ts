@@ -13,6 +13,11 @@ import * as bulkZoneRoute from "@/app/api/sites/[siteId]/devices/bulk-zone/route
 import * as zonesRoute from "@/app/api/sites/[siteId]/zones/route";
 import * as zoneRoute from "@/app/api/sites/[siteId]/zones/[zoneId]/route";
 import * as scenesRoute from "@/app/api/sites/[siteId]/scenes/route";
+import * as floorsRoute from "@/app/api/sites/[siteId]/floors/route";
+import * as floorRoute from "@/app/api/sites/[siteId]/floors/[floorId]/route";
+import * as planRoute from "@/app/api/sites/[siteId]/floors/[floorId]/plan/route";
+import * as importRoute from "@/app/api/sites/[siteId]/devices/import/route";
+import * as exportRoute from "@/app/api/sites/[siteId]/devices/export/route";
 import * as sceneRoute from "@/app/api/sites/[siteId]/scenes/[sceneId]/route";
 import { getDb } from "@/db";
 import { createInvite } from "@/db/queries/invites";
@@ -45,7 +50,23 @@ const dev = `${DEMO_SITE_ID}-dev-dl-shop-1`;
 const zoneId = `${DEMO_SITE_ID}-zone-window`;
 const sceneId = `${DEMO_SITE_ID}-scene-workshop`;
 
+const floorId = `${DEMO_SITE_ID}-floor-ground`;
+const everyone = { integrator: 200, manager: 200, occupant: 200, outsider: 404, signedOut: 401 };
+function multipart(cookie: string | null, name: string): Request {
+  const form = new FormData();
+  form.set("name", name);
+  const headers: Record<string, string> = { origin: "http://localhost:3000" };
+  if (cookie) headers.cookie = cookie;
+  return new Request("http://localhost:3000/x", { method: "POST", headers, body: form });
+}
+
 const cases: Case[] = [
+  { name: "GET floors", call: (c) => h(floorsRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
+  { name: "POST floors", call: (c) => h(floorsRoute.POST)(multipart(c, `F ${uniq()}`), site()), expect: created(integratorOnly) },
+  { name: "PATCH floor", call: (c) => h(floorRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { name: "Ground floor" } }), params({ siteId: DEMO_SITE_ID, floorId })), expect: integratorOnly },
+  { name: "GET floor plan", call: (c) => h(planRoute.GET)(req("GET", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, floorId })), expect: everyone },
+  { name: "POST devices/import (preview)", call: (c) => h(importRoute.POST)(req("POST", "/x", { cookie: c, body: { csv: "name,kind\nM,mesh-luminaire", mode: "preview" } }), site()), expect: integratorOnly },
+  { name: "GET devices/export", call: (c) => h(exportRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: read },
   { name: "GET devices", call: (c) => h(devicesRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: read },
   { name: "POST devices", call: (c) => h(devicesRoute.POST)(req("POST", "/x", { cookie: c, body: { name: `M ${uniq()}`, kind: "mesh-luminaire" } }), site()), expect: created(integratorOnly) },
   { name: "GET device", call: (c) => h(deviceRoute.GET)(req("GET", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, deviceId: dev })), expect: read },
