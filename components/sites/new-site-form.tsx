@@ -8,16 +8,19 @@ import { FormError, SubmitButton } from "@/components/forms/submit-button";
 import { submitJson } from "@/components/forms/submit-json";
 import { createSiteSchema, type CreateSiteInput } from "@/lib/validation/auth";
 
-export function NewSiteForm() {
+type SiteValues = { id: string; name: string; address: string; timeZone: string; latitude: number; longitude: number };
+
+/** Creates a site, or (with `site`) edits one. */
+export function NewSiteForm({ site }: { site?: SiteValues }) {
   const router = useRouter();
   const form = useForm<CreateSiteInput>({
     resolver: zodResolver(createSiteSchema),
-    defaultValues: { name: "", address: "", timeZone: "UTC", latitude: 0, longitude: 0 },
+    defaultValues: site ? { name: site.name, address: site.address, timeZone: site.timeZone, latitude: site.latitude, longitude: site.longitude } : { name: "", address: "", timeZone: "UTC", latitude: 0, longitude: 0 },
   });
   const { errors, isSubmitting } = form.formState;
 
   const onSubmit = form.handleSubmit(async (values) => {
-    const res = await submitJson<CreateSiteInput, { site: { id: string } }>("/api/sites", values, form.setError);
+    const res = await submitJson<CreateSiteInput, { site: { id: string } }>(site ? `/api/sites/${site.id}` : "/api/sites", values, form.setError, site ? "PATCH" : "POST");
     if (res) {
       router.push(`/sites/${res.site.id}`);
       router.refresh();
@@ -34,8 +37,8 @@ export function NewSiteForm() {
         <Field label="Latitude (°)" type="number" step="any" inputMode="decimal" registration={form.register("latitude", { valueAsNumber: true })} error={errors.latitude} />
         <Field label="Longitude (°)" type="number" step="any" inputMode="decimal" registration={form.register("longitude", { valueAsNumber: true })} error={errors.longitude} />
       </div>
-      <SubmitButton isPending={isSubmitting} pendingText="Creating…">
-        Create site
+      <SubmitButton isPending={isSubmitting} pendingText="Saving…">
+        {site ? "Save site" : "Create site"}
       </SubmitButton>
     </form>
   );

@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db";
 import { devices, memberships, sites, zones, type Site } from "@/db/schema";
+import { AppError } from "@/lib/errors";
 import type { OverviewDevice, SiteOverview } from "@/lib/validation/overview";
 
 
@@ -74,4 +75,10 @@ export async function pingDatabase(): Promise<number> {
   const started = performance.now();
   await getDb().run(sql`select 1`);
   return performance.now() - started;
+}
+
+export async function updateSite({ siteId, ...fields }: { siteId: string; name?: string; address?: string; timeZone?: string; latitude?: number; longitude?: number }): Promise<Site> {
+  const [row] = await getDb().update(sites).set(fields).where(eq(sites.id, siteId)).returning();
+  if (!row) throw new AppError("not_found", "No such site.");
+  return row;
 }

@@ -8,6 +8,7 @@ const SECTIONS: { href: string; label: string; permission: Permission }[] = [
   { href: "/plan", label: "Plan", permission: "inventory.view" },
   { href: "/scenes", label: "Scenes", permission: "scenes.edit" },
   { href: "/members", label: "Members", permission: "members.manage" },
+  { href: "/settings", label: "Settings", permission: "site.edit" },
 ];
 
 export function sectionsFor(role: Role) {

@@ -35,10 +35,9 @@ export const acceptInviteSchema = z
   .object({ token: tokenSchema, name: nameSchema.optional(), password: passwordSchema.optional() })
   .strict();
 
-export const createSiteSchema = z
-  .object({
+const siteFields = {
     name: z.string().trim().min(1, "Give the site a name").max(100, "Use at most 100 characters"),
-    address: z.string().trim().max(300, "Use at most 300 characters").default(""),
+    address: z.string().trim().max(300, "Use at most 300 characters"),
     timeZone: z
       .string()
       .max(64)
@@ -52,8 +51,11 @@ export const createSiteSchema = z
       }, "Choose a time zone from the IANA list (e.g. UTC, WET, CET)"),
     latitude: z.number("Enter a latitude in degrees").min(-90, "Latitude is between −90° and 90°").max(90, "Latitude is between −90° and 90°"),
     longitude: z.number("Enter a longitude in degrees").min(-180, "Longitude is between −180° and 180°").max(180, "Longitude is between −180° and 180°"),
-  })
-  .strict();
+};
+
+export const createSiteSchema = z.object({ ...siteFields, address: siteFields.address.default("") }).strict();
+/** No defaults: a PATCH leaves out what it does not change. */
+export const siteUpdateSchema = z.object(siteFields).partial().strict();
 
 export type SignUpInput = z.input<typeof signUpSchema>;
 export type SignInInput = z.input<typeof signInSchema>;

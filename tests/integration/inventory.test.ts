@@ -138,3 +138,15 @@ describe("device PATCH changes only what it names", () => {
     expect(Object.keys(body.fields).join(" ")).toMatch(/profile\.energy\.storage/);
   });
 });
+
+describe("site settings", () => {
+  it("changes only the fields sent and refuses an unknown time zone", async () => {
+    const route = await import("@/app/api/sites/[siteId]/route");
+    const res = await route.PATCH(req("PATCH", "/x", { cookie: integrator, body: { latitude: 51.3 } }), site);
+    const { site: updated } = await res.json();
+    expect(updated.latitude).toBe(51.3);
+    expect(updated.address).toBe("4 Larch Lane (invented)");
+    const bad = await route.PATCH(req("PATCH", "/x", { cookie: integrator, body: { timeZone: "Nowhere/Else" } }), site);
+    expect(bad.status).toBe(422);
+  });
+});

@@ -18,6 +18,7 @@ import * as floorRoute from "@/app/api/sites/[siteId]/floors/[floorId]/route";
 import * as planRoute from "@/app/api/sites/[siteId]/floors/[floorId]/plan/route";
 import * as importRoute from "@/app/api/sites/[siteId]/devices/import/route";
 import * as exportRoute from "@/app/api/sites/[siteId]/devices/export/route";
+import * as siteRoute from "@/app/api/sites/[siteId]/route";
 import * as sceneRoute from "@/app/api/sites/[siteId]/scenes/[sceneId]/route";
 import { getDb } from "@/db";
 import { createInvite } from "@/db/queries/invites";
@@ -61,6 +62,8 @@ function multipart(cookie: string | null, name: string): Request {
 }
 
 const cases: Case[] = [
+  { name: "GET site", call: (c) => h(siteRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
+  { name: "PATCH site", call: (c) => h(siteRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { timeZone: "WET" } }), site()), expect: integratorOnly },
   { name: "GET floors", call: (c) => h(floorsRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
   { name: "POST floors", call: (c) => h(floorsRoute.POST)(multipart(c, `F ${uniq()}`), site()), expect: created(integratorOnly) },
   { name: "PATCH floor", call: (c) => h(floorRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { name: "Ground floor" } }), params({ siteId: DEMO_SITE_ID, floorId })), expect: integratorOnly },
