@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
@@ -25,6 +26,7 @@ export function ChangePasswordForm() {
   });
   return (
     <form onSubmit={onSubmit} noValidate className="mt-4 flex max-w-sm flex-col gap-4">
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       {isDone ? (
         <p role="status" className="rounded-md border border-moss/50 bg-moss/10 px-3 py-2 text-sm font-semibold">
@@ -36,6 +38,7 @@ export function ChangePasswordForm() {
       <SubmitButton isPending={isSubmitting} pendingText="Saving…">
         Change password
       </SubmitButton>
+      </HydratedFieldset>
     </form>
   );
 }

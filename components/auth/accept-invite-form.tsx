@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useForm, type Resolver } from "react-hook-form";
@@ -32,6 +33,7 @@ export function AcceptInviteForm({ token, isNewAccount }: { token: string; isNew
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       {isNewAccount ? (
         <>
@@ -42,6 +44,7 @@ export function AcceptInviteForm({ token, isNewAccount }: { token: string; isNew
       <SubmitButton isPending={isSubmitting} pendingText="Accepting…">
         {isNewAccount ? "Create account and accept" : "Accept invitation"}
       </SubmitButton>
+      </HydratedFieldset>
     </form>
   );
 }

@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
@@ -30,11 +31,13 @@ export function ForgotPasswordForm() {
   }
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       <Field label="E-mail" type="email" autoComplete="email" registration={form.register("email")} error={errors.email} />
       <SubmitButton isPending={isSubmitting} pendingText="Sending…">
         Send reset link
       </SubmitButton>
+      </HydratedFieldset>
     </form>
   );
 }

@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
@@ -29,12 +30,14 @@ export function ResetPasswordForm({ token }: { token: string }) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       <Field label="New password" type="password" autoComplete="new-password" hint="At least 10 characters. Every other session of this account is signed out." registration={form.register("password")} error={errors.password} />
       <Field label="New password again" type="password" autoComplete="new-password" registration={form.register("confirm")} error={errors.confirm} />
       <SubmitButton isPending={isSubmitting} pendingText="Saving…">
         Set new password
       </SubmitButton>
+      </HydratedFieldset>
     </form>
   );
 }

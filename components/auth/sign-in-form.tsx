@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
@@ -25,6 +26,7 @@ export function SignInForm({ next }: { next?: string }) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       <Field label="E-mail" type="email" autoComplete="email" registration={form.register("email")} error={errors.email} />
       <Field label="Password" type="password" autoComplete="current-password" registration={form.register("password")} error={errors.password} />
@@ -34,6 +36,7 @@ export function SignInForm({ next }: { next?: string }) {
       <Link href="/forgot-password" className="text-sm font-semibold underline">
         Forgot your password?
       </Link>
+      </HydratedFieldset>
     </form>
   );
 }

@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
@@ -23,6 +24,7 @@ export function SignUpForm() {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       <Field label="Your name" autoComplete="name" registration={form.register("name")} error={errors.name} />
       <Field label="E-mail" type="email" autoComplete="email" registration={form.register("email")} error={errors.email} />
@@ -30,6 +32,7 @@ export function SignUpForm() {
       <SubmitButton isPending={isSubmitting} pendingText="Creating your account…">
         Create account
       </SubmitButton>
+      </HydratedFieldset>
     </form>
   );
 }

@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
@@ -56,6 +57,7 @@ export function DeviceForm({ siteId, zones, device, onDone }: { siteId: string; 
 
   return (
     <form onSubmit={onSubmit} noValidate className="grid gap-4 sm:grid-cols-2" aria-label={device ? `Edit ${device.name}` : "Add a device"}>
+      <HydratedFieldset>
       <div className="sm:col-span-2">
         <FormError message={errors.root?.server?.message} />
       </div>
@@ -73,6 +75,7 @@ export function DeviceForm({ siteId, zones, device, onDone }: { siteId: string; 
           Cancel
         </button>
       </div>
+      </HydratedFieldset>
     </form>
   );
 }

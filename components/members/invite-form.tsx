@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useQueryClient } from "@tanstack/react-query";
 import { useId, useState } from "react";
@@ -31,6 +32,7 @@ export function InviteForm({ siteId, zones }: { siteId: string; zones: { id: str
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       {sentTo ? (
         <p role="status" className="rounded-md border border-moss/50 bg-moss/10 px-3 py-2 text-sm font-semibold">
@@ -50,6 +52,7 @@ export function InviteForm({ siteId, zones }: { siteId: string; zones: { id: str
       <SubmitButton isPending={isSubmitting} pendingText="Sending…">
         Send invitation
       </SubmitButton>
+      </HydratedFieldset>
     </form>
   );
 }

@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { Controller, useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
@@ -45,6 +46,7 @@ export function SceneForm({ siteId, scene, nextNumber, zones, devices, onDone }:
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label={scene ? `Edit scene ${scene.name}` : "New scene"}>
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       <div className="grid gap-4 sm:grid-cols-3">
         <Field label="Scene number" type="number" min={1} max={65535} registration={form.register("number", { valueAsNumber: true })} error={errors.number} />
@@ -86,6 +88,7 @@ export function SceneForm({ siteId, scene, nextNumber, zones, devices, onDone }:
           Cancel
         </button>
       </div>
+      </HydratedFieldset>
     </form>
   );
 }

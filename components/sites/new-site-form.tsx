@@ -1,5 +1,6 @@
 "use client";
 
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
@@ -29,6 +30,7 @@ export function NewSiteForm({ site }: { site?: SiteValues }) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <HydratedFieldset>
       <FormError message={errors.root?.server?.message} />
       <Field label="Site name" registration={form.register("name")} error={errors.name} />
       <Field label="Address" hint="Free text, for people; not used for sun times." registration={form.register("address")} error={errors.address} />
@@ -40,6 +42,7 @@ export function NewSiteForm({ site }: { site?: SiteValues }) {
       <SubmitButton isPending={isSubmitting} pendingText="Saving…">
         {site ? "Save site" : "Create site"}
       </SubmitButton>
+      </HydratedFieldset>
     </form>
   );
 }

@@ -88,12 +88,15 @@ test("password reset round trip through the local mail sink", async ({ page, wat
   await expect(page).toHaveURL(/\/sign-in/);
 
   await page.getByRole("link", { name: "Forgot your password?" }).click();
+  // Wait for the new page: the sign-in form's own E-mail field is there until the route changes.
+  await expect(page.getByRole("heading", { name: "Reset your password" })).toBeVisible();
   await page.getByLabel("E-mail").fill(email);
   await page.getByRole("button", { name: "Send reset link" }).click();
   await expect(page.getByText(/a reset link is on its way/)).toBeVisible();
 
   const link = await linkFromMail(email, "/reset-password");
   await page.goto(link);
+  await expect(page.getByRole("heading", { name: "Choose a new password" })).toBeVisible();
   await page.getByLabel("New password", { exact: true }).fill("the second phrase");
   await page.getByLabel("New password again").fill("the second phrase");
   await page.getByRole("button", { name: "Set new password" }).click();

@@ -1,0 +1,23 @@
+"use client";
+
+import { useSyncExternalStore } from "react";
+
+const subscribe = () => () => undefined;
+
+/**
+ * Keeps a server-rendered form disabled until React has hydrated it, so text
+ * typed in that first moment is never silently dropped by the form library.
+ * (`display: contents` leaves the form's own layout as it was.)
+ */
+export function HydratedFieldset({ children }: { children: React.ReactNode }) {
+  const isHydrated = useSyncExternalStore(
+    subscribe,
+    () => true,
+    () => false,
+  );
+  return (
+    <fieldset disabled={!isHydrated} className="contents">
+      {children}
+    </fieldset>
+  );
+}
