@@ -1,0 +1,84 @@
+import { formatAddress } from "@/lib/mesh/address";
+import { encodeGenericOnOffSetUnack, encodeLightLightnessSetUnack, encodeSceneRecallUnack, nextTid, toHex } from "@/lib/mesh/commands";
+import { levelToActual } from "@/lib/mesh/lightness";
+import { encodeTransitionTime } from "@/lib/mesh/transition-time";
+import { withCause, type Runtime } from "./runtime";
+import type { Cause, CommandMessage } from "./types";
+
+/** How luminaires are told: a Light Lightness level, or a Scene Recall of levels they store. */
+export type LevelMessage = { kind: "lightness"; fadeMs?: number } | { kind: "scene"; scene: number; fadeMs: number };
+export type Addressed = { deviceId: string; to: number; isChanged: boolean };
+
+/**
+ * Turns the luminaires one action reached into as few messages as possible. A
+ * zone gets one group message when every luminaire in it follows the action to
+ * the same result (so they change together, no popcorning, and nothing held at a
+ * higher override level is touched); otherwise each changed luminaire gets its
+ * own unicast message. Nothing is sent when nothing changes.
+ */
+export function planLevelCommands(rt: Runtime, addressed: Addressed[], message: LevelMessage, cause: Cause, at: number): void {
+  const byZone = new Map<string | null, Addressed[]>();
+  for (const a of addressed) {
+    const zoneId = rt.model.devices.get(a.deviceId)?.zoneId ?? null;
+    const list = byZone.get(zoneId) ?? [];
+    list.push(a);
+    byZone.set(zoneId, list);
+  }
+  for (const zoneId of [...rt.model.zoneOrder, null]) {
+    const inZone = byZone.get(zoneId);
+    if (!inZone || !inZone.some((a) => a.isChanged)) continue;
+    const group = zoneId === null ? null : rt.model.zones.get(zoneId)?.groupAddress ?? null;
+    const members = zoneId === null ? [] : rt.model.luminairesByZone.get(zoneId) ?? [];
+    const isWholeZone =
+      group !== null &&
+      members.every((id) => inZone.some((a) => a.deviceId === id)) &&
+      (message.kind === "scene" || inZone.every((a) => a.to === inZone[0].to));
+    if (isWholeZone) {
+      sendLevel(rt, group, "group", message, inZone[0].to, members, cause, at);
+    } else {
+      for (const a of inZone) {
+        if (!a.isChanged) continue;
+        const address = rt.model.devices.get(a.deviceId)!.unicastAddress;
+        sendLevel(rt, address, "unicast", message, a.to, [a.deviceId], cause, at);
+      }
+    }
+  }
+}
+
+function sendLevel(rt: Runtime, destination: number, addressing: "group" | "unicast", message: LevelMessage, level: number, devices: string[], cause: Cause, at: number) {
+  const transitionMs = message.fadeMs;
+  if (message.kind === "scene") {
+    send(rt, { destination, addressing, message: "scene-recall-unack", devices, fadeMs: transitionMs }, (tid) => encodeSceneRecallUnack({ scene: message.scene, tid, transitionMs }), cause, at);
+  } else {
+    send(rt, { destination, addressing, message: "light-lightness-set-unack", devices, fadeMs: transitionMs }, (tid) => encodeLightLightnessSetUnack({ lightness: levelToActual(level), tid, transitionMs }), cause, at);
+  }
+}
+
+export function sendRelay(rt: Runtime, deviceId: string, isOn: boolean, cause: Cause, at: number): void {
+  const destination = rt.model.devices.get(deviceId)!.unicastAddress;
+  send(rt, { destination, addressing: "unicast", message: "generic-onoff-set-unack", devices: [deviceId], fadeMs: undefined }, (tid) => encodeGenericOnOffSetUnack({ isOn, tid }), cause, at);
+}
+
+type Envelope = { destination: number; addressing: "group" | "unicast"; message: CommandMessage; devices: string[]; fadeMs: number | undefined };
+
+function send(rt: Runtime, env: Envelope, encode: (tid: number) => Uint8Array, cause: Cause, at: number) {
+  const source = rt.model.gatewayAddress;
+  const counter = formatAddress(source);
+  // A receiver treats a repeat of (source, destination, TID) within seconds as the same transaction, so every message takes the next TID.
+  const tid = rt.state.tids[counter] ?? 0;
+  rt.state.tids[counter] = nextTid(tid);
+  rt.out.commands.push(
+    withCause(cause, {
+      at,
+      source,
+      destination: env.destination,
+      addressing: env.addressing,
+      message: env.message,
+      tid,
+      ttl: rt.model.ttl,
+      transition: env.fadeMs === undefined ? null : encodeTransitionTime(env.fadeMs),
+      bytes: toHex(encode(tid)),
+      devices: env.devices,
+    }),
+  );
+}
