@@ -120,6 +120,146 @@ export const scenes = sqliteTable(
   (t) => [uniqueIndex("scenes_site_number").on(t.siteId, t.number), uniqueIndex("scenes_site_name").on(t.siteId, t.name)],
 );
 
+/** One Rule set per site: the draft being edited, and which numbered version is live. */
+export const ruleSets = sqliteTable("rule_sets", {
+  siteId: text("site_id")
+    .primaryKey()
+    .references(() => sites.id, { onDelete: "cascade" }),
+  /** The Canvas graph (lib/rules/graph.ts). */
+  draftGraph: text("draft_graph", { mode: "json" }).$type<unknown>().notNull(),
+  /** Bumped on every draft save, for optimistic concurrency. */
+  draftRevision: integer("draft_revision").notNull().default(1),
+  activeVersionId: text("active_version_id"),
+  updatedAt: integer("updated_at", { mode: "timestamp_ms" })
+    .notNull()
+    .$defaultFn(() => new Date()),
+  updatedBy: text("updated_by").references(() => users.id, { onDelete: "set null" }),
+});
+
+export const ruleSetVersions = sqliteTable(
+  "rule_set_versions",
+  {
+    id: text("id").primaryKey(),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    number: integer("number").notNull(),
+    graph: text("graph", { mode: "json" }).$type<unknown>().notNull(),
+    /** json-rules-engine rule JSON compiled from the graph: the stored, reference form. */
+    rules: text("rules", { mode: "json" }).$type<unknown[]>().notNull(),
+    createdAt: createdAt(),
+    createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+  },
+  (t) => [uniqueIndex("rule_set_versions_site_number").on(t.siteId, t.number)],
+);
+
+/** The append-only Event log. `seq` orders it; (site, event id) makes ingest idempotent. */
+export const events = sqliteTable(
+  "events",
+  {
+    seq: integer("seq").primaryKey({ autoIncrement: true }),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    eventId: text("event_id").notNull(),
+    at: integer("at").notNull(),
+    device: text("device").notNull(),
+    kind: text("kind").notNull(),
+    value: text("value", { mode: "json" }).$type<number | boolean | string | null>(),
+    source: text("source", { enum: ["gateway", "bench", "import"] }).notNull(),
+    receivedAt: integer("received_at").notNull(),
+  },
+  (t) => [uniqueIndex("events_site_event").on(t.siteId, t.eventId), index("events_site_at").on(t.siteId, t.at)],
+);
+
+/** What the engine did for one event or one timer run: changes, commands, notices and the Trace. */
+export const engineSteps = sqliteTable(
+  "engine_steps",
+  {
+    seq: integer("seq").primaryKey({ autoIncrement: true }),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    eventSeq: integer("event_seq").references(() => events.seq, { onDelete: "cascade" }),
+    at: integer("at").notNull(),
+    versionId: text("version_id"),
+    output: text("output", { mode: "json" }).$type<unknown>().notNull(),
+  },
+  (t) => [index("engine_steps_site_seq").on(t.siteId, t.seq), index("engine_steps_event").on(t.eventSeq)],
+);
+
+/** Commands for the gateway, numbered so a polling gateway asks for those after the last it has. */
+export const gatewayCommands = sqliteTable(
+  "gateway_commands",
+  {
+    seq: integer("seq").primaryKey({ autoIncrement: true }),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    stepSeq: integer("step_seq").notNull(),
+    at: integer("at").notNull(),
+    command: text("command", { mode: "json" }).$type<unknown>().notNull(),
+  },
+  (t) => [index("gateway_commands_site_seq").on(t.siteId, t.seq)],
+);
+
+/** The live engine's state per site (levels, overrides, timers …) and the lease a worker holds to fire timers. */
+export const engineStates = sqliteTable("engine_states", {
+  siteId: text("site_id")
+    .primaryKey()
+    .references(() => sites.id, { onDelete: "cascade" }),
+  state: text("state", { mode: "json" }).$type<unknown>().notNull(),
+  versionId: text("version_id"),
+  /** Bumped on every write: a writer that read an older revision retries. */
+  revision: integer("revision").notNull().default(0),
+  /** Earliest timer due, for the worker's query; null when none. */
+  nextTimerAt: integer("next_timer_at"),
+  leaseOwner: text("lease_owner"),
+  leaseUntil: integer("lease_until"),
+  updatedAt: integer("updated_at").notNull(),
+});
+
+/** Notices waiting for delivery; the dedupe key keeps one notice per event, rule and recipient. */
+export const noticesOutbox = sqliteTable(
+  "notices_outbox",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    dedupeKey: text("dedupe_key").notNull(),
+    recipient: text("recipient").notNull(),
+    channels: text("channels", { mode: "json" }).$type<string[]>().notNull(),
+    text: text("text").notNull(),
+    at: integer("at").notNull(),
+    status: text("status", { enum: ["pending", "handed-on", "delivered", "failed"] }).notNull().default("pending"),
+    leaseOwner: text("lease_owner"),
+    leaseUntil: integer("lease_until"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("notices_outbox_site_dedupe").on(t.siteId, t.dedupeKey), index("notices_outbox_status").on(t.status)],
+);
+
+/** Gateway keys: shown once, stored as SHA-256; revoked keys stay for the record. */
+export const apiKeys = sqliteTable(
+  "api_keys",
+  {
+    id: text("id").primaryKey(),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    /** The first characters of the key, to recognise it in the list. */
+    prefix: text("prefix").notNull(),
+    keyHash: text("key_hash").notNull().unique(),
+    createdAt: createdAt(),
+    createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    lastUsedAt: integer("last_used_at", { mode: "timestamp_ms" }),
+    revokedAt: integer("revoked_at", { mode: "timestamp_ms" }),
+  },
+  (t) => [index("api_keys_site").on(t.siteId)],
+);
+
 export const users = sqliteTable("users", {
   id: text("id").primaryKey(),
   /** Stored lower-case; unique. */
@@ -227,3 +367,5 @@ export type Invite = typeof invites.$inferSelect;
 export type Upload = typeof uploads.$inferSelect;
 export type Floor = typeof floors.$inferSelect;
 export type Scene = typeof scenes.$inferSelect;
+export type RuleSetVersion = typeof ruleSetVersions.$inferSelect;
+export type ApiKey = typeof apiKeys.$inferSelect;

@@ -105,6 +105,7 @@ function buildDevices(): NewDevice[] {
 const zone = (key: string) => `${DEMO_SITE_ID}-zone-${key}`;
 const dev = (key: string) => `${DEMO_SITE_ID}-dev-${key}`;
 
+/** Numbers match the demo Rule set (lib/rules/demo-graph.ts: 1 open, 2 closed, 3 flat evening, 9 escape). */
 export type DemoScene = { id: string; siteId: string; number: number; name: string; fadeMs: number; isOccupantRecallable: boolean; levels: SceneLevel[] };
 
 export const demoScenes: DemoScene[] = [
@@ -118,14 +119,14 @@ export const demoScenes: DemoScene[] = [
     levels: [{ zoneId: zone("shop"), level: 80 }, { deviceId: dev("track-shop-1"), level: 100 }, { deviceId: dev("track-shop-2"), level: 100 }, { zoneId: zone("window"), level: 70 }, { zoneId: zone("textile"), level: 40 }],
   },
   { id: `${DEMO_SITE_ID}-scene-closed`, siteId: DEMO_SITE_ID, number: 2, name: "Closed", fadeMs: 10_000, isOccupantRecallable: false, levels: [{ zoneId: zone("shop"), level: 0 }, { zoneId: zone("window"), level: 20 }, { zoneId: zone("textile"), level: 0 }, { zoneId: zone("workshop"), level: 0 }] },
-  { id: `${DEMO_SITE_ID}-scene-workshop`, siteId: DEMO_SITE_ID, number: 3, name: "Workshop bright", fadeMs: 1000, isOccupantRecallable: false, levels: [{ zoneId: zone("workshop"), level: 100 }] },
-  { id: `${DEMO_SITE_ID}-scene-path`, siteId: DEMO_SITE_ID, number: 4, name: "Path welcome", fadeMs: 2500, isOccupantRecallable: true, levels: [{ zoneId: zone("path"), level: 70 }] },
-  { id: `${DEMO_SITE_ID}-scene-flat-evening`, siteId: DEMO_SITE_ID, number: 5, name: "Flat evening", fadeMs: 6200, isOccupantRecallable: true, levels: [{ deviceId: dev("dl-flat-1"), level: 45 }, { deviceId: dev("dl-flat-2"), level: 25 }] },
+  { id: `${DEMO_SITE_ID}-scene-workshop`, siteId: DEMO_SITE_ID, number: 4, name: "Workshop bright", fadeMs: 1000, isOccupantRecallable: false, levels: [{ zoneId: zone("workshop"), level: 100 }] },
+  { id: `${DEMO_SITE_ID}-scene-path`, siteId: DEMO_SITE_ID, number: 5, name: "Path welcome", fadeMs: 2500, isOccupantRecallable: true, levels: [{ zoneId: zone("path"), level: 70 }] },
+  { id: `${DEMO_SITE_ID}-scene-flat-evening`, siteId: DEMO_SITE_ID, number: 3, name: "Flat evening", fadeMs: 6200, isOccupantRecallable: true, levels: [{ deviceId: dev("dl-flat-1"), level: 45 }, { deviceId: dev("dl-flat-2"), level: 25 }] },
   { id: `${DEMO_SITE_ID}-scene-flat-off`, siteId: DEMO_SITE_ID, number: 6, name: "Flat off", fadeMs: 2500, isOccupantRecallable: true, levels: [{ zoneId: zone("flat"), level: 0 }] },
   {
     id: `${DEMO_SITE_ID}-scene-escape`,
     siteId: DEMO_SITE_ID,
-    number: 7,
+    number: 9,
     name: "Escape route",
     fadeMs: 0,
     isOccupantRecallable: false,

@@ -1,12 +1,14 @@
 import { readFile } from "node:fs/promises";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
-import { inArray } from "drizzle-orm";
+import { eq, inArray } from "drizzle-orm";
 import { hashPassword } from "../../lib/auth/password";
 import { randomStoredName, sniffImage } from "../../lib/uploads/image";
 import type { Database } from "../client";
 import { removeUploadFile, saveUploadFile } from "../files";
-import { devices, floors, memberships, scenes, sites, uploads, users, zones } from "../schema";
+import { compileGraph } from "../../lib/rules/compile";
+import { demoRuleGraph } from "../../lib/rules/demo-graph";
+import { devices, floors, memberships, ruleSets, ruleSetVersions, scenes, sites, uploads, users, zones } from "../schema";
 import { demoDevices, demoFloors, demoScenes, demoSite, demoZones } from "./demo-site";
 import { DEMO_PASSWORD, demoUsers } from "./demo-users";
 
@@ -50,6 +52,13 @@ export async function seedDemo(db: Database, options: { withUsers?: boolean } = 
       }
       const d = await tx.insert(devices).values(demoDevices).onConflictDoNothing().returning({ id: devices.id });
       await tx.insert(scenes).values(demoScenes).onConflictDoNothing();
+      // The demo Rule set: the draft and version 1, active. Only when the site has no rules yet.
+      const [hasRules] = await tx.insert(ruleSets).values({ siteId: demoSite.id, draftGraph: demoRuleGraph, draftRevision: 1 }).onConflictDoNothing().returning({ siteId: ruleSets.siteId });
+      if (hasRules) {
+        const versionId = `${demoSite.id}-rules-v1`;
+        await tx.insert(ruleSetVersions).values({ id: versionId, siteId: demoSite.id, number: 1, graph: demoRuleGraph, rules: compileGraph(demoRuleGraph) }).onConflictDoNothing();
+        await tx.update(ruleSets).set({ activeVersionId: versionId }).where(eq(ruleSets.siteId, demoSite.id));
+      }
       let u: { id: string }[] = [];
       if (withUsers) {
         u = await tx

@@ -80,7 +80,7 @@ const cases: Case[] = [
   { name: "PATCH zone", call: (c) => h(zoneRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { name: "Shop window" } }), params({ siteId: DEMO_SITE_ID, zoneId })), expect: integratorOnly },
   { name: "GET scenes", call: (c) => h(scenesRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: { ...read, occupant: 200 } },
   { name: "POST scenes", call: (c) => h(scenesRoute.POST)(req("POST", "/x", { cookie: c, body: { number: 100 + Math.floor(Math.random() * 60000), name: `S ${uniq()}`, fadeMs: 0, levels: [] } }), site()), expect: created(managers) },
-  { name: "PUT scene", call: (c) => h(sceneRoute.PUT)(req("PUT", "/x", { cookie: c, body: { number: 3, name: "Workshop bright", fadeMs: 1000, isOccupantRecallable: false, levels: [] } }), params({ siteId: DEMO_SITE_ID, sceneId })), expect: managers },
+  { name: "PUT scene", call: (c) => h(sceneRoute.PUT)(req("PUT", "/x", { cookie: c, body: { number: 4, name: "Workshop bright", fadeMs: 1000, isOccupantRecallable: false, levels: [] } }), params({ siteId: DEMO_SITE_ID, sceneId })), expect: managers },
   { name: "GET /api/sites", call: (c) => h(sitesRoute.GET)(req("GET", "/api/sites", { cookie: c }), params({})), expect: { integrator: 200, manager: 200, occupant: 200, outsider: 200, signedOut: 401 } },
   {
     name: "POST /api/sites",
