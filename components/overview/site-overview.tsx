@@ -7,6 +7,7 @@ import { ErrorPanel } from "@/components/ui/error-panel";
 import { LoadingPanel } from "@/components/ui/loading-panel";
 import { DEVICE_KIND_INFO, isBatteryFree, isLuminaire, type PowerSource } from "@/lib/catalogue/device-kinds";
 import type { OverviewDevice, SiteOverviewResponse } from "@/lib/validation/overview";
+import { LiveStrip } from "./live-strip";
 import { ZoneCard } from "./zone-card";
 
 type PowerFilter = "all" | PowerSource;
@@ -27,6 +28,8 @@ export function SiteOverview({ siteId }: { siteId: string }) {
   const query = useQuery({
     queryKey: ["sites", siteId, "overview"],
     queryFn: () => fetchJson<SiteOverviewResponse>(`/api/sites/${encodeURIComponent(siteId)}/overview`),
+    // The live state changes as the gateway reports; a calm refresh keeps the overview current.
+    refetchInterval: 10_000,
   });
 
   const filtered = useMemo(() => {
@@ -39,7 +42,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
   if (query.isPending) return <LoadingPanel label="Loading zones and devices…" />;
   if (query.isError) return <ErrorPanel title="The overview could not be loaded." detail={query.error.message} onRetry={() => void query.refetch()} />;
 
-  const { site, zones, unassigned, role } = query.data;
+  const { site, zones, unassigned, role, live } = query.data;
   const isOccupant = role === "occupant";
   const all = [...zones.flatMap((z) => z.devices), ...unassigned];
   const stats = [
@@ -69,6 +72,8 @@ export function SiteOverview({ siteId }: { siteId: string }) {
           ))}
         </dl>
       </section>
+
+      <LiveStrip live={live} timeZone={site.timeZone} />
 
       <section aria-labelledby="zones-title" className="space-y-4">
         <div className="flex flex-wrap items-end gap-4">
@@ -108,9 +113,9 @@ export function SiteOverview({ siteId }: { siteId: string }) {
           {filtered!.zones
             .filter((z) => !isFiltering || z.devices.length > 0)
             .map((z) => (
-              <ZoneCard key={z.id} title={z.name} groupAddress={z.groupAddress} devices={z.devices} />
+              <ZoneCard key={z.id} title={z.name} groupAddress={z.groupAddress} devices={z.devices} live={live} />
             ))}
-          {filtered!.unassigned.length > 0 ? <ZoneCard title="Not in a zone" devices={filtered!.unassigned} /> : null}
+          {filtered!.unassigned.length > 0 ? <ZoneCard title="Not in a zone" devices={filtered!.unassigned} live={live} /> : null}
         </div>
       </section>
     </div>

@@ -1,14 +1,21 @@
 import { PowerBadge } from "@/components/ui/power-badge";
 import { DEVICE_KIND_INFO } from "@/lib/catalogue/device-kinds";
 import { formatAddress } from "@/lib/mesh/address";
-import type { OverviewDevice } from "@/lib/validation/overview";
+import type { LiveSummary, OverviewDevice } from "@/lib/validation/overview";
 
 function addressText(d: OverviewDevice): string {
   const first = formatAddress(d.unicastAddress);
   return d.elementCount > 1 ? `${first}–${formatAddress(d.unicastAddress + d.elementCount - 1)}` : first;
 }
 
-export function ZoneCard({ title, groupAddress, devices }: { title: string; groupAddress?: number; devices: OverviewDevice[] }) {
+function nowText(d: OverviewDevice, live: LiveSummary | null): string {
+  if (!live) return "—";
+  if (d.id in live.relays) return live.relays[d.id] ? "on" : "off";
+  if (d.id in live.levels) return `${Math.round(live.levels[d.id])} %`;
+  return "—";
+}
+
+export function ZoneCard({ title, groupAddress, devices, live = null }: { title: string; groupAddress?: number; devices: OverviewDevice[]; live?: LiveSummary | null }) {
   return (
     <article className="rounded-xl border border-line bg-paper p-4 shadow-sm" aria-label={`Zone ${title}`}>
       <header className="flex items-baseline justify-between gap-2">
@@ -28,7 +35,8 @@ export function ZoneCard({ title, groupAddress, devices }: { title: string; grou
             <tr className="border-b border-line text-left text-slate">
               <th scope="col" className="py-1 pr-2 font-semibold">Device</th>
               <th scope="col" className="py-1 pr-2 font-semibold">Power</th>
-              <th scope="col" className="py-1 text-right font-semibold">Unicast</th>
+              <th scope="col" className="py-1 pr-2 text-right font-semibold">Unicast</th>
+              <th scope="col" className="py-1 text-right font-semibold">Now</th>
             </tr>
           </thead>
           <tbody>
@@ -43,7 +51,8 @@ export function ZoneCard({ title, groupAddress, devices }: { title: string; grou
                   <td className="py-1.5 pr-2">
                     <PowerBadge power={info.power} />
                   </td>
-                  <td className="py-1.5 text-right font-mono">{addressText(d)}</td>
+                  <td className="py-1.5 pr-2 text-right font-mono">{addressText(d)}</td>
+                  <td className="py-1.5 text-right font-mono">{nowText(d, live)}</td>
                 </tr>
               );
             })}

@@ -1,7 +1,8 @@
 import { randomUUID } from "node:crypto";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db";
-import { devices, memberships, sites, zones, type Site } from "@/db/schema";
+import { devices, engineStates, memberships, sites, zones, type Site } from "@/db/schema";
+import type { EngineState } from "@/lib/bus/types";
 import { AppError } from "@/lib/errors";
 import type { OverviewDevice, SiteOverview } from "@/lib/validation/overview";
 
@@ -38,7 +39,7 @@ export async function getSiteOverview({ siteId, zoneIds = null }: { siteId: stri
   const db = getDb();
   const site = await getSite({ siteId });
   if (!site) return undefined;
-  const [zoneRows, deviceRows] = await Promise.all([
+  const [zoneRows, deviceRows, [liveRow]] = await Promise.all([
     db
       .select({ id: zones.id, name: zones.name, groupAddress: zones.groupAddress })
       .from(zones)
@@ -56,6 +57,7 @@ export async function getSiteOverview({ siteId, zoneIds = null }: { siteId: stri
       .from(devices)
       .where(zoneIds ? and(eq(devices.siteId, siteId), inArray(devices.zoneId, zoneIds)) : eq(devices.siteId, siteId))
       .orderBy(asc(devices.unicastAddress)),
+    db.select({ state: engineStates.state }).from(engineStates).where(eq(engineStates.siteId, siteId)),
   ]);
   const byZone = new Map<string, OverviewDevice[]>();
   const unassigned: OverviewDevice[] = [];
@@ -67,6 +69,7 @@ export async function getSiteOverview({ siteId, zoneIds = null }: { siteId: stri
     site: { id: site.id, name: site.name, address: site.address, timeZone: site.timeZone, latitude: site.latitude, longitude: site.longitude },
     zones: zoneRows.map((z) => ({ ...z, devices: byZone.get(z.id) ?? [] })),
     unassigned,
+    live: liveSummary(liveRow?.state as EngineState | undefined, new Set(deviceRows.map((d) => d.id))),
   };
 }
 
@@ -81,4 +84,11 @@ export async function updateSite({ siteId, ...fields }: { siteId: string; name?:
   const [row] = await getDb().update(sites).set(fields).where(eq(sites.id, siteId)).returning();
   if (!row) throw new AppError("not_found", "No such site.");
   return row;
+}
+
+/** Only what the overview shows, and only for the devices the caller may see. */
+function liveSummary(state: EngineState | undefined, visible: Set<string>) {
+  if (!state) return null;
+  const pick = <T,>(record: Record<string, T>) => Object.fromEntries(Object.entries(record).filter(([id]) => visible.has(id)));
+  return { mode: state.mode, emergency: { active: state.emergency.active, since: state.emergency.since }, levels: pick(state.levels), relays: pick(state.relays), at: state.now };
 }

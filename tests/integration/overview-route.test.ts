@@ -60,3 +60,19 @@ describe("GET /api/sites", () => {
     expect((await res2.json()).sites).toEqual([]);
   });
 });
+
+describe("live state on the overview", () => {
+  it("shows levels and the latched emergency after the fire input trips, and only the occupant's devices to an occupant", async () => {
+    const { ingestEvents } = await import("@/db/queries/live");
+    const at = Date.parse("2026-06-20T10:00:00Z");
+    await ingestEvents({ siteId: DEMO_SITE_ID, batch: [{ id: "ov-fire-1", siteId: DEMO_SITE_ID, at, device: `${DEMO_SITE_ID}-dev-fire-input`, kind: "fire-alarm", value: "active" }], source: "gateway" });
+    const res = await getOverview(get(`/api/sites/${DEMO_SITE_ID}/overview`, { cookie: integrator }), params({ siteId: DEMO_SITE_ID }));
+    const body = (await res.json()) as SiteOverviewResponse;
+    expect(body.live?.emergency.active).toBe(true);
+    // The escape scene (9) puts the stairs downlight at 100 % and the shop off.
+    expect(body.live?.levels[`${DEMO_SITE_ID}-dev-dl-escape-1`]).toBe(100);
+    expect(body.live?.levels[`${DEMO_SITE_ID}-dev-dl-shop-1`] ?? 0).toBe(0);
+    const occ = (await (await getOverview(get(`/api/sites/${DEMO_SITE_ID}/overview`, { cookie: occupant }), params({ siteId: DEMO_SITE_ID }))).json()) as SiteOverviewResponse;
+    expect(Object.keys(occ.live!.levels).every((id) => id.includes("flat"))).toBe(true);
+  });
+});
