@@ -6,7 +6,7 @@ import { useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
 import { Field } from "@/components/forms/field";
 import { SelectField } from "@/components/forms/select-field";
-import { FormError, SubmitButton } from "@/components/forms/submit-button";
+import { FormError, SaveOrCancel } from "@/components/forms/submit-button";
 import { submitJson } from "@/components/forms/submit-json";
 import { DEVICE_KIND_INFO, DEVICE_KINDS } from "@/lib/catalogue/device-kinds";
 import { formatAddress } from "@/lib/mesh/address";
@@ -67,14 +67,7 @@ export function DeviceForm({ siteId, zones, device, onDone }: { siteId: string; 
       <Field label="Unicast address" placeholder="automatic" hint="0x0001–0x7FFF. Empty: the next free range." registration={form.register("unicastAddress")} error={errors.unicastAddress} />
       <Field label="Elements" type="number" min={1} max={255} registration={form.register("elementCount", { valueAsNumber: true })} error={errors.elementCount} />
       {kind === "kinetic-rocker" ? <SelectField label="Buttons" registration={form.register("buttons")} error={errors.buttons} options={[{ value: "2", label: "2 buttons" }, { value: "4", label: "4 buttons" }]} /> : null}
-      <div className="flex gap-2 sm:col-span-2">
-        <SubmitButton isPending={isSubmitting} pendingText="Saving…">
-          {device ? "Save device" : "Add device"}
-        </SubmitButton>
-        <button type="button" onClick={onDone} className="rounded-md px-4 py-2 font-semibold text-slate hover:bg-fog">
-          Cancel
-        </button>
-      </div>
+      <SaveOrCancel isPending={isSubmitting} label={device ? "Save device" : "Add device"} onCancel={onDone} className="flex gap-2 sm:col-span-2" />
       </HydratedFieldset>
     </form>
   );

@@ -20,3 +20,17 @@ export function FormError({ message }: { message?: string }) {
     </p>
   );
 }
+
+/** Save and Cancel side by side, the same in every editor. */
+export function SaveOrCancel({ isPending, label, onCancel, className = "flex gap-2" }: { isPending: boolean; label: string; onCancel: () => void; className?: string }) {
+  return (
+    <div className={className}>
+      <SubmitButton isPending={isPending} pendingText="Saving…">
+        {label}
+      </SubmitButton>
+      <button type="button" onClick={onCancel} className="rounded-md px-4 py-2 font-semibold text-slate hover:bg-fog">
+        Cancel
+      </button>
+    </div>
+  );
+}

@@ -5,7 +5,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { Controller, useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
 import { Field } from "@/components/forms/field";
-import { FormError, SubmitButton } from "@/components/forms/submit-button";
+import { FormError, SaveOrCancel } from "@/components/forms/submit-button";
 import { submitJson } from "@/components/forms/submit-json";
 import { describeTransitionTime, encodeTransitionTime } from "@/lib/mesh/transition-time";
 import type { DeviceDto, ZoneDto } from "@/lib/validation/devices";
@@ -80,14 +80,7 @@ export function SceneForm({ siteId, scene, nextNumber, zones, devices, onDone }:
           <ScenePreview levels={levels} zones={zones} devices={devices} />
         </div>
       </div>
-      <div className="flex gap-2">
-        <SubmitButton isPending={isSubmitting} pendingText="Saving…">
-          {scene ? "Save scene" : "Create scene"}
-        </SubmitButton>
-        <button type="button" onClick={onDone} className="rounded-md px-4 py-2 font-semibold text-slate hover:bg-fog">
-          Cancel
-        </button>
-      </div>
+      <SaveOrCancel isPending={isSubmitting} label={scene ? "Save scene" : "Create scene"} onCancel={onDone} />
       </HydratedFieldset>
     </form>
   );
