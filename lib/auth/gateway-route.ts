@@ -14,11 +14,13 @@ type RouteContext = { params: Promise<Record<string, string | string[]>> };
 export function gatewayRoute(fn: (ctx: { request: Request; siteId: string; keyId: string }) => Promise<Response>) {
   return async (request: Request, context?: RouteContext): Promise<Response> => {
     try {
-      const { siteId } = siteParamsSchema.parse(await context?.params);
-      const match = /^Bearer\s+(jpk_[A-Za-z0-9_-]{43})$/.exec(request.headers.get("authorization") ?? "");
+      // The scheme name is case-insensitive (RFC 7235 §2.1); the key is checked before anything else is said.
+      const match = /^bearer\s+(jpk_[A-Za-z0-9_-]{43})$/i.exec(request.headers.get("authorization") ?? "");
       if (!match) throw new AppError("unauthenticated", "Send the site's gateway key as Authorization: Bearer jpk_…");
-      const verified = await verifyApiKey({ key: match[1] });
-      if (!verified || verified.siteId !== siteId) throw new AppError("unauthenticated", "This key is wrong, revoked, or for another site.");
+      const params = siteParamsSchema.safeParse(await context?.params);
+      const verified = params.success ? await verifyApiKey({ key: match[1], siteId: params.data.siteId }) : null;
+      if (!params.success || !verified) throw new AppError("unauthenticated", "This key is wrong, revoked, or for another site.");
+      const siteId = params.data.siteId;
       return await fn({ request, siteId, keyId: verified.keyId });
     } catch (err) {
       return errorResponse(err);

@@ -7,6 +7,7 @@ const SECTIONS: { href: string; label: string; permission: Permission }[] = [
   { href: "/devices", label: "Devices", permission: "inventory.view" },
   { href: "/plan", label: "Plan", permission: "inventory.view" },
   { href: "/scenes", label: "Scenes", permission: "scenes.edit" },
+  { href: "/keys", label: "Gateway keys", permission: "gateway-keys.manage" },
   { href: "/members", label: "Members", permission: "members.manage" },
   { href: "/settings", label: "Settings", permission: "site.edit" },
 ];

@@ -19,6 +19,7 @@ import * as planRoute from "@/app/api/sites/[siteId]/floors/[floorId]/plan/route
 import * as importRoute from "@/app/api/sites/[siteId]/devices/import/route";
 import * as exportRoute from "@/app/api/sites/[siteId]/devices/export/route";
 import * as siteRoute from "@/app/api/sites/[siteId]/route";
+import * as keysRoute from "@/app/api/sites/[siteId]/keys/route";
 import * as sceneRoute from "@/app/api/sites/[siteId]/scenes/[sceneId]/route";
 import { getDb } from "@/db";
 import { createInvite } from "@/db/queries/invites";
@@ -62,6 +63,8 @@ function multipart(cookie: string | null, name: string): Request {
 }
 
 const cases: Case[] = [
+  { name: "GET keys", call: (c) => h(keysRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: integratorOnly },
+  { name: "POST keys", call: (c) => h(keysRoute.POST)(req("POST", "/x", { cookie: c, body: { name: `K ${uniq()}` } }), site()), expect: created(integratorOnly) },
   { name: "GET site", call: (c) => h(siteRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
   { name: "PATCH site", call: (c) => h(siteRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { timeZone: "WET" } }), site()), expect: integratorOnly },
   { name: "GET floors", call: (c) => h(floorsRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
