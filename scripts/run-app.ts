@@ -102,6 +102,7 @@ export async function runApp(options: RunOptions): Promise<void> {
   }
 
   start("mail-sink", "node_modules/.bin/tsx", ["workers/mail-sink.ts"], env);
+  start("engine-worker", "node_modules/.bin/tsx", ["workers/engine-worker.ts"], env);
   start("app", "node_modules/.bin/next", ["start", "-p", String(options.port)], { ...env, NODE_ENV: "production" });
   await waitForHealth(url, 60_000);
   options.onReady?.(url);

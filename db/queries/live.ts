@@ -51,6 +51,17 @@ async function storeStep(tx: Tx, siteId: string, step: Step, eventSeq: number | 
   return { stepSeq: row.seq, commands };
 }
 
+// One write transaction at a time per process. The SQLite driver is synchronous,
+// so a second BEGIN IMMEDIATE while the first awaits would spin in the busy
+// handler on the main thread; queueing here costs nothing. (A coordination
+// primitive, not shared data: other processes are serialised by the database.)
+const holder = globalThis as unknown as { joulepathLiveLock?: Promise<unknown> };
+function serialised<T>(work: () => Promise<T>): Promise<T> {
+  const run = (holder.joulepathLiveLock ?? Promise.resolve()).then(work, work);
+  holder.joulepathLiveLock = run.catch(() => undefined);
+  return run;
+}
+
 /**
  * Runs `work` on the site's live engine inside one write transaction: state,
  * events, steps, commands and notices go in together or not at all, so a crash
@@ -58,6 +69,10 @@ async function storeStep(tx: Tx, siteId: string, step: Step, eventSeq: number | 
  * database's write lock; the revision check guards against a stale read anyway.
  */
 async function withLiveEngine<T>(siteId: string, work: (engine: Engine, tx: Tx, versionId: string | null) => Promise<T>): Promise<T> {
+  return serialised(() => runLive(siteId, work));
+}
+
+async function runLive<T>(siteId: string, work: (engine: Engine, tx: Tx, versionId: string | null) => Promise<T>): Promise<T> {
   const loaded = await loadEngineInput(siteId);
   return getDb().transaction(async (tx) => {
     const [row] = await tx.select().from(engineStates).where(eq(engineStates.siteId, siteId));
@@ -133,12 +148,15 @@ export async function getLiveState({ siteId }: { siteId: string }): Promise<Engi
  * Claims sites with a timer due, with a lease so that several workers never fire
  * the same site at once; a lease left by a crashed worker expires.
  */
-export async function claimDueSites({ owner, now, leaseMs }: { owner: string; now: number; leaseMs: number }): Promise<string[]> {
+export async function claimDueSites({ owner, now, leaseMs, limit = 20 }: { owner: string; now: number; leaseMs: number; limit?: number }): Promise<string[]> {
   const db = getDb();
+  // A limit, so that with many sites due at once (09:00) several workers share them.
   const due = await db
     .select({ siteId: engineStates.siteId })
     .from(engineStates)
-    .where(and(lte(engineStates.nextTimerAt, now), or(isNull(engineStates.leaseUntil), lt(engineStates.leaseUntil, now))));
+    .where(and(lte(engineStates.nextTimerAt, now), or(isNull(engineStates.leaseUntil), lt(engineStates.leaseUntil, now))))
+    .orderBy(asc(engineStates.nextTimerAt))
+    .limit(limit);
   if (!due.length) return [];
   const claimed = await db
     .update(engineStates)
@@ -158,4 +176,14 @@ export async function releaseSite({ siteId, owner }: { siteId: string; owner: st
 export async function countEvents({ siteId }: { siteId: string }): Promise<number> {
   const [row] = await getDb().select({ n: sql<number>`count(*)` }).from(events).where(eq(events.siteId, siteId));
   return row.n;
+}
+
+/**
+ * After a new version goes live: let the worker run the site now, so the new
+ * rules' schedules are set without waiting for the next device event. A site with
+ * no live state yet starts with its first event (so a gateway replaying an
+ * earlier day is not refused as late).
+ */
+export async function wakeSite({ siteId, now }: { siteId: string; now: number }): Promise<void> {
+  await getDb().update(engineStates).set({ nextTimerAt: now }).where(eq(engineStates.siteId, siteId));
 }

@@ -6,6 +6,7 @@ import { AppError } from "@/lib/errors";
 import { compileGraph } from "@/lib/rules/compile";
 import { ruleGraphSchema } from "@/lib/rules/graph";
 import { validateGraph, type Problem } from "@/lib/rules/validate";
+import { wakeSite } from "./live";
 
 const EMPTY_GRAPH = { nodes: [], edges: [] };
 
@@ -55,7 +56,7 @@ export async function activateDraft({ siteId, userId }: { siteId: string; userId
   const problems = (await validateDraftGraph({ siteId, graph: draftGraph })).filter((p) => p.severity === "error");
   if (problems.length) throw new AppError("bad_request", `The draft has ${problems.length} problem${problems.length === 1 ? "" : "s"} to fix before it can be activated.`, { problems });
   const rules = compileGraph(ruleGraphSchema.parse(draftGraph));
-  return getDb().transaction(async (tx) => {
+  const activated = await getDb().transaction(async (tx) => {
     const [last] = await tx.select({ number: ruleSetVersions.number }).from(ruleSetVersions).where(eq(ruleSetVersions.siteId, siteId)).orderBy(desc(ruleSetVersions.number)).limit(1);
     const number = (last?.number ?? 0) + 1;
     const id = randomUUID();
@@ -63,6 +64,8 @@ export async function activateDraft({ siteId, userId }: { siteId: string; userId
     await tx.update(ruleSets).set({ activeVersionId: id }).where(eq(ruleSets.siteId, siteId));
     return { versionId: id, number };
   });
+  await wakeSite({ siteId, now: Date.now() });
+  return activated;
 }
 
 /** Makes an earlier version active again (a rollback); its graph is not copied into the draft. */
@@ -71,4 +74,5 @@ export async function activateVersion({ siteId, versionId }: { siteId: string; v
   const [v] = await db.select({ id: ruleSetVersions.id }).from(ruleSetVersions).where(and(eq(ruleSetVersions.siteId, siteId), eq(ruleSetVersions.id, versionId)));
   if (!v) throw new AppError("not_found", "No such version of this site's rules.");
   await db.update(ruleSets).set({ activeVersionId: versionId }).where(eq(ruleSets.siteId, siteId));
+  await wakeSite({ siteId, now: Date.now() });
 }

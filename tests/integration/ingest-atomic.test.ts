@@ -48,3 +48,17 @@ describe("ingest is all or nothing", () => {
     expect((await getLiveState({ siteId: DEMO_SITE_ID }))?.relays[`${DEMO_SITE_ID}-dev-fan-workshop`]).toBe(true);
   });
 });
+
+describe("concurrent store calls in one process", () => {
+  it("queue instead of fighting over the write lock (both succeed, quickly)", async () => {
+    const { advanceSite } = await import("@/db/queries/live");
+    const started = performance.now();
+    const [a, b] = await Promise.allSettled([
+      ingestEvents({ siteId: DEMO_SITE_ID, batch: [ev(10, "temperature", "climate-workshop", 25)], source: "gateway" }),
+      advanceSite({ siteId: DEMO_SITE_ID, to: base + 11 * 60_000 }),
+    ]);
+    expect([a.status, b.status]).toEqual(["fulfilled", "fulfilled"]);
+    // Without the queue the second BEGIN IMMEDIATE waited out the 5 s busy timeout and failed.
+    expect(performance.now() - started).toBeLessThan(3000);
+  });
+});
