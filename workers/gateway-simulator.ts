@@ -3,14 +3,16 @@
  * sensor reports to a local console through the gateway API, the way a site's
  * gateway would, and prints what came back.
  *
- *   npx tsx workers/gateway-simulator.ts --url http://localhost:3000 --site larch-lane [--key jpk_…] [--speed 600] [--day 2026-06-20]
+ *   npx tsx workers/gateway-simulator.ts --url http://localhost:3000 --site larch-lane [--key jpk_…] [--speed 0|600] [--day 2026-06-20]
  *
  * Without --key it mints a key for the site straight in the database
  * (DATABASE_URL, default file:data/joulepath.db) and prints it once. The day is
  * generated from a PRNG seeded by site and day, so the same day always sends the
  * same events with the same ids: running it twice shows them as duplicates.
- * --speed compresses time (600: ten simulated minutes per second); 0 sends every
- * batch at once. Only loopback URLs are accepted, and the run is bounded: at
+ * --speed 0 (the default) sends the whole day as one batch; --speed 600 paces it in
+ * half-hour batches, ten simulated minutes per second — against a live console
+ * whose timer worker runs, that lets the site's clock move past the rest of a past
+ * day, so use it with a console whose worker is stopped. Only loopback URLs are accepted, and the run is bounded: at
  * most one day, one batch per half hour, a timeout on every request.
  */
 import { createHash, randomBytes, randomUUID } from "node:crypto";
@@ -59,7 +61,7 @@ const optionsSchema = z.object({
 export function parseSimulatorArgs(argv: string[]): SimOptions {
   const { values } = parseArgs({
     args: argv,
-    options: { url: { type: "string", default: "http://localhost:3000" }, site: { type: "string", default: DEMO_SITE_ID }, key: { type: "string" }, speed: { type: "string", default: "600" }, day: { type: "string" } },
+    options: { url: { type: "string", default: "http://localhost:3000" }, site: { type: "string", default: DEMO_SITE_ID }, key: { type: "string" }, speed: { type: "string", default: "0" }, day: { type: "string" } },
     strict: true,
   });
   const parsed = optionsSchema.safeParse(values);
@@ -213,7 +215,9 @@ const defaultIo: Io = { fetch: (...args) => fetch(...args), log: (line) => conso
 /** Posts the batches in order, pacing them by --speed; stops at once on 401 (a wrong key makes every batch fail). */
 export async function runSimulator(options: Omit<SimOptions, "key" | "day"> & { key: string; day: LocalDate; timeZone: string }, io: Io = defaultIo): Promise<Summary> {
   const events = buildDay({ siteId: options.siteId, day: options.day, timeZone: options.timeZone });
-  const batches = batchesOf(events);
+  // All at once (speed 0) goes as one batch: the live timer worker cannot step in
+  // between and move the site's clock past the rest of the (earlier) day.
+  const batches = batchesOf(events, options.speed === 0 ? 24 * 60 : BATCH_MINUTES);
   const endpoint = `${options.url}/api/v1/sites/${encodeURIComponent(options.siteId)}/events`;
   const clock = new Intl.DateTimeFormat("en-GB", { timeZone: options.timeZone, hour: "2-digit", minute: "2-digit", hourCycle: "h23" });
   const summary: Summary = { batches: 0, events: 0, accepted: 0, duplicates: 0, rejected: 0, commands: 0, failed: 0 };
@@ -223,7 +227,8 @@ export async function runSimulator(options: Omit<SimOptions, "key" | "day"> & { 
   for (const batch of batches) {
     if (options.speed > 0) await io.sleep(Math.max(0, (batch.to - simulatedNow) / options.speed));
     simulatedNow = batch.to;
-    const label = `${clock.format(batch.from)}–${clock.format(batch.to)}`;
+    // The times of the first and last event it carries, in the site's local time.
+    const label = `${clock.format(batch.events[0].at)}–${clock.format(batch.events[batch.events.length - 1].at)}`;
     let res: Response;
     try {
       res = await io.fetch(endpoint, {
