@@ -166,7 +166,7 @@ export const events = sqliteTable(
     device: text("device").notNull(),
     kind: text("kind").notNull(),
     value: text("value", { mode: "json" }).$type<number | boolean | string | null>(),
-    source: text("source", { enum: ["gateway", "bench", "import"] }).notNull(),
+    source: text("source", { enum: ["gateway", "bench", "import", "console"] }).notNull(),
     receivedAt: integer("received_at").notNull(),
   },
   (t) => [uniqueIndex("events_site_event").on(t.siteId, t.eventId), index("events_site_at").on(t.siteId, t.at)],

@@ -73,7 +73,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
         </dl>
       </section>
 
-      <LiveStrip live={live} timeZone={site.timeZone} />
+      <LiveStrip live={live} timeZone={site.timeZone} siteId={site.id} canClear={!isOccupant} />
 
       <section aria-labelledby="zones-title" className="space-y-4">
         <div className="flex flex-wrap items-end gap-4">

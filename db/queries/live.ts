@@ -97,7 +97,7 @@ async function runLive<T>(siteId: string, work: (engine: Engine, tx: Tx, version
 export type IngestResult = { accepted: { id: string; stepSeq: number }[]; duplicates: string[]; commands: (GatewayCommand & { seq: number })[] };
 
 /** Stores new events (ids already seen are skipped) and runs each through the active rules in time order. */
-export async function ingestEvents({ siteId, batch, source }: { siteId: string; batch: DeviceEvent[]; source: "gateway" | "bench" | "import" }): Promise<IngestResult> {
+export async function ingestEvents({ siteId, batch, source }: { siteId: string; batch: DeviceEvent[]; source: "gateway" | "bench" | "import" | "console" }): Promise<IngestResult> {
   const ordered = [...batch].sort((a, b) => a.at - b.at || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   return withLiveEngine(siteId, async (engine, tx, versionId) => {
     const result: IngestResult = { accepted: [], duplicates: [], commands: [] };

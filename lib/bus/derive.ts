@@ -1,6 +1,7 @@
 import { DEVICE_KIND_INFO } from "@/lib/catalogue/device-kinds";
 import type { Measure, ThresholdWatch } from "@/lib/rules/rule-index";
 import { triggerKey } from "@/lib/rules/trigger-key";
+import { applyEmergency } from "./actions-levels";
 import type { Occurrence, Runtime } from "./runtime";
 import type { DeviceEvent } from "./types";
 
@@ -10,11 +11,25 @@ export const LONG_PRESS_MS = 1000;
 type Derived = { occurrences: Occurrence[]; note: string | null };
 
 /**
+ * Events a person makes in the console rather than a device reports. Only one
+ * exists: clearing a latched emergency (a manager or integrator, after the
+ * fire-alarm system is reset). `value` names the person for the Trace.
+ */
+export const CONSOLE_DEVICE = "console";
+
+function fromConsole(rt: Runtime, event: DeviceEvent, at: number): Derived {
+  if (event.kind !== "clear-emergency") return { occurrences: [], note: `The console does not send "${event.kind}"; ignored.` };
+  const outcome = applyEmergency(rt, { nodeId: "console", type: "clear-emergency", params: {} } as Parameters<typeof applyEmergency>[1], { origin: event.id, ruleId: null, actionId: null, reason: "cleared-by-person" }, at);
+  return { occurrences: [], note: `Cleared in the console by ${String(event.value ?? "someone")}: ${outcome}` };
+}
+
+/**
  * Raw report → the triggers it amounts to, updating what the engine remembers of
  * the device. Readings only become triggers when they cross a watched threshold;
  * motion and contacts also start the timers for vacancy and "left open".
  */
 export function deriveFromEvent(rt: Runtime, event: DeviceEvent, at: number): Derived {
+  if (event.device === CONSOLE_DEVICE) return fromConsole(rt, event, at);
   const device = rt.model.devices.get(event.device);
   if (!device) return none("No device with this id is on the site; ignored.");
   const info = DEVICE_KIND_INFO[device.kind];

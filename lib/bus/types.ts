@@ -56,7 +56,7 @@ export type EngineState = {
 
 /** Why an output exists: a rule's action, or the engine itself (reason) when a hold or timer ends. */
 export type Cause = { origin: string; ruleId: string | null; actionId: string | null; reason?: SystemReason };
-export type SystemReason = "zone-vacant" | "hold-ended" | "relay-time-up";
+export type SystemReason = "zone-vacant" | "hold-ended" | "relay-time-up" | "cleared-by-person";
 
 export type StateChange = Cause & { at: number } & (
     | { kind: "level"; deviceId: string; from: number; to: number; source: OverrideLevel | null }

@@ -21,7 +21,7 @@ export const COMMANDS_PAGE_MAX = 500;
 export const MAX_BATCH_BYTES = 2 * 1024 * 1024;
 
 const COMMAND_MESSAGES = ["generic-onoff-set-unack", "light-lightness-set-unack", "scene-recall-unack"] as const satisfies readonly CommandMessage[];
-const SYSTEM_REASONS = ["zone-vacant", "hold-ended", "relay-time-up"] as const satisfies readonly SystemReason[];
+const SYSTEM_REASONS = ["zone-vacant", "hold-ended", "relay-time-up", "cleared-by-person"] as const satisfies readonly SystemReason[];
 // Compile-time guards: a value added to CommandMessage or SystemReason but not listed above fails typecheck here.
 const everyValueListed: [Exclude<CommandMessage, (typeof COMMAND_MESSAGES)[number]>, Exclude<SystemReason, (typeof SYSTEM_REASONS)[number]>] extends [never, never] ? true : never = true;
 void everyValueListed;

@@ -62,3 +62,21 @@ describe("concurrent store calls in one process", () => {
     expect(performance.now() - started).toBeLessThan(3000);
   });
 });
+
+describe("clearing a latched emergency in the console", () => {
+  it("only managers and integrators may; it clears the latch and the Trace says who", async () => {
+    const { POST } = await import("@/app/api/sites/[siteId]/emergency/clear/route");
+    const { params, req, userWithSession } = await import("./helpers");
+    const manager = await userWithSession("clear-m@example.invalid", { siteId: DEMO_SITE_ID, role: "manager" });
+    const occupant = await userWithSession("clear-o@example.invalid", { siteId: DEMO_SITE_ID, role: "occupant" });
+    const site = params({ siteId: DEMO_SITE_ID });
+    expect((await POST(req("POST", "/x", { cookie: manager.cookie }), site)).status).toBe(409);
+    await ingestEvents({ siteId: DEMO_SITE_ID, batch: [ev(20, "fire-alarm", "fire-input", "active")], source: "gateway" });
+    expect((await getLiveState({ siteId: DEMO_SITE_ID }))?.emergency.active).toBe(true);
+    expect((await POST(req("POST", "/x", { cookie: occupant.cookie }), site)).status).toBe(403);
+    expect((await POST(req("POST", "/x", { cookie: manager.cookie }), site)).status).toBe(200);
+    expect((await getLiveState({ siteId: DEMO_SITE_ID }))?.emergency.active).toBe(false);
+    const [last] = await getDb().select({ output: engineSteps.output }).from(engineSteps).where(eq(engineSteps.siteId, DEMO_SITE_ID)).orderBy(sql`seq desc`).limit(1);
+    expect(JSON.stringify(last.output)).toMatch(/Cleared in the console by clear-m/);
+  });
+});
