@@ -39,14 +39,14 @@ export function PlanView({ siteId, floor, devices, canEdit, selectedId, onSelect
   return (
     <div
       ref={box}
-      className="relative w-full select-none overflow-hidden rounded-xl border border-line bg-paper"
+      className="relative w-full select-none rounded-xl border border-line bg-paper"
       style={{ aspectRatio: `${width} / ${height}` }}
       onClick={(e) => {
         if (e.target === e.currentTarget || (e.target as HTMLElement).tagName === "IMG") onPlanClick(toImagePx(e.clientX, e.clientY));
       }}
     >
       {/* eslint-disable-next-line @next/next/no-img-element -- a member-only API image at its own size, not a static asset */}
-      <img src={`/api/sites/${siteId}/floors/${floor.id}/plan?v=${floor.plan.id}`} alt={`Floor plan: ${floor.name}`} className="absolute inset-0 h-full w-full" draggable={false} />
+      <img src={`/api/sites/${siteId}/floors/${floor.id}/plan?v=${floor.plan.id}`} alt={`Floor plan: ${floor.name}`} className="absolute inset-0 h-full w-full rounded-xl" draggable={false} />
       {scalePoints.map((p, i) => (
         <span key={i} aria-hidden="true" className="absolute -ml-2 -mt-2 h-4 w-4 rounded-full border-2 border-clay bg-paper" style={pct(p)} />
       ))}
