@@ -18,6 +18,7 @@ import { compileGraph, type RuleJson } from "@/lib/rules/compile";
 import { chainEdges, parseRuleGraph, type RuleGraphInput } from "@/lib/rules/graph";
 import { OPERATORS, registerOperators } from "@/lib/rules/registry";
 import { buildRuleIndex, type RuleIndex, type ThresholdWatch } from "@/lib/rules/rule-index";
+import { prng } from "../lib/random/prng";
 
 const SEED = 20240620;
 const SIZES = [20, 200, 2000];
@@ -26,17 +27,6 @@ const EVENTS = 20_000;
 const WARM_MS = 1000;
 const MEASURE_MS = 2000;
 
-/** mulberry32: small, fast, and the same sequence everywhere. */
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 // ——— a synthetic site: 40 rockers, 16 light sensors, 8 climate sensors, 8 motion sensors, 20 zones × 4 luminaires ———
 const devices: DeviceConfig[] = [];

@@ -26,6 +26,7 @@ import { seedDemo } from "@/db/seed";
 import { createEngine } from "@/lib/bus/engine";
 import type { DeviceEvent, EngineState, Step } from "@/lib/bus/types";
 import { allowServerOnly } from "@/workers/engine-worker";
+import { prng } from "../lib/random/prng";
 
 const SEED = 20240620;
 const SITE = "larch-lane";
@@ -48,17 +49,6 @@ process.once("SIGINT", () => {
   process.exit(130);
 });
 
-/** mulberry32: small, fast, and the same sequence everywhere. */
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * What the demo site's devices send during a day, from 07:00 local (Thursday

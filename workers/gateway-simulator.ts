@@ -26,6 +26,8 @@ import { DEMO_SITE_ID, demoDevices, demoSite } from "../db/seed/demo-site";
 import { env } from "../lib/env";
 import { formatAddress } from "../lib/mesh/address";
 import { addDays, formatLocalDate, localDateOf, localToInstant, type LocalDate } from "../lib/sun/local-time";
+export { prng } from "../lib/random/prng";
+import { prng } from "../lib/random/prng";
 
 const LOOPBACK = new Set(["localhost", "127.0.0.1", "[::1]", "::1"]);
 /** Below this the run would take hours; a day at 60× takes 18 minutes. */
@@ -93,18 +95,6 @@ export async function mintKeyInDatabase({ url, authToken, siteId, name }: { url:
   } finally {
     db.$client.close();
   }
-}
-
-/** mulberry32: a small, well-mixed 32-bit PRNG; deterministic for a seed (common practice, no source). */
-export function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /** FNV-1a, to turn "site|day" into a seed. */
