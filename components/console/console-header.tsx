@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { LogoMark } from "@/components/ui/logo-mark";
 import { SignOutButton } from "@/components/auth/sign-out-button";
 import { ROLE_LABEL, type Role } from "@/lib/auth/roles";
 import { SiteNav, type NavSection } from "./site-nav";
@@ -16,10 +17,7 @@ export function ConsoleHeader({ sites, user, current }: Props) {
     <header className="border-b border-line bg-paper">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
         <Link href="/sites" className="flex items-center gap-2 text-lg font-extrabold tracking-tight text-ink">
-          <svg aria-hidden="true" viewBox="0 0 32 32" className="h-7 w-7">
-            <rect width="32" height="32" rx="7" fill="#1d2833" />
-            <path d="M18 4 9 18h6l-2 10 10-15h-6z" fill="#d99a1e" />
-          </svg>
+          <LogoMark className="h-7 w-7" />
           Joulepath
         </Link>
         {current ? <SiteSwitcher sites={sites} currentSiteId={current.siteId} /> : null}

@@ -16,10 +16,6 @@ export async function listFloors({ siteId }: { siteId: string }): Promise<FloorW
   return rows.map((r) => ({ ...r.floor, plan: r.plan?.id ? r.plan : null }));
 }
 
-export async function getFloor({ siteId, floorId }: { siteId: string; floorId: string }): Promise<FloorWithPlan | undefined> {
-  return (await listFloors({ siteId })).find((f) => f.id === floorId);
-}
-
 export async function getPlanUpload({ siteId, floorId }: { siteId: string; floorId: string }): Promise<Upload | undefined> {
   const [row] = await getDb()
     .select({ upload: uploads })

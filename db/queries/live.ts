@@ -1,4 +1,4 @@
-import { and, asc, eq, gt, inArray, isNull, lt, lte, or, sql } from "drizzle-orm";
+import { and, asc, eq, gt, inArray, isNull, lt, lte, or } from "drizzle-orm";
 import { getDb } from "@/db";
 import { devices, engineStates, engineSteps, events, gatewayCommands, noticesOutbox, ruleSets, ruleSetVersions, scenes, sites, zones } from "@/db/schema";
 import { createEngine, type Engine } from "@/lib/bus/engine";
@@ -20,7 +20,8 @@ export async function loadEngineInput(siteId: string) {
     db.select().from(scenes).where(eq(scenes.siteId, siteId)),
     db.select().from(ruleSets).where(eq(ruleSets.siteId, siteId)),
   ]);
-  const [version] = ruleSet?.activeVersionId ? await db.select().from(ruleSetVersions).where(eq(ruleSetVersions.id, ruleSet.activeVersionId)) : [];
+  // Only the compiled rules: the version's graph is for the Canvas, not the engine.
+  const [version] = ruleSet?.activeVersionId ? await db.select({ id: ruleSetVersions.id, rules: ruleSetVersions.rules }).from(ruleSetVersions).where(eq(ruleSetVersions.id, ruleSet.activeVersionId)) : [];
   const input = toSiteInput({ site, devices: deviceRows, zones: zoneRows, scenes: sceneRows.map((s) => ({ number: s.number, name: s.name, fadeMs: s.fadeMs, levels: s.levels })) });
   return { input, rules: (version?.rules ?? []) as RuleJson[], versionId: version?.id ?? null, devices: deviceRows };
 }
@@ -219,10 +220,6 @@ export async function releaseSite({ siteId, owner }: { siteId: string; owner: st
     .where(and(eq(engineStates.siteId, siteId), eq(engineStates.leaseOwner, owner)));
 }
 
-export async function countEvents({ siteId }: { siteId: string }): Promise<number> {
-  const [row] = await getDb().select({ n: sql<number>`count(*)` }).from(events).where(eq(events.siteId, siteId));
-  return row.n;
-}
 
 /**
  * After a new version goes live: let the worker run the site now, so the new

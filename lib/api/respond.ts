@@ -29,7 +29,3 @@ export function errorResponse(err: unknown): Response {
   return Response.json({ error: "internal", message: "Something went wrong on the server. It has been logged." }, { status: 500 });
 }
 
-/** Parses with a schema, throwing the ZodError so errorResponse answers 422. */
-export function parseOrThrow<T extends z.ZodType>(schema: T, input: unknown): z.infer<T> {
-  return schema.parse(input);
-}
