@@ -233,6 +233,10 @@ export const noticesOutbox = sqliteTable(
     text: text("text").notNull(),
     at: integer("at").notNull(),
     status: text("status", { enum: ["pending", "handed-on", "delivered", "failed"] }).notNull().default("pending"),
+    /** What the notice is about, for people's preferences ("visitor", "call", "door", "emergency", "energy", "care", "other"). */
+    kind: text("kind").notNull().default("other"),
+    /** The console page a click on the notice opens. */
+    url: text("url"),
     leaseOwner: text("lease_owner"),
     leaseUntil: integer("lease_until"),
     createdAt: createdAt(),
@@ -340,6 +344,217 @@ export const signInFailures = sqliteTable(
   (t) => [index("sign_in_failures_key_at").on(t.key, t.at)],
 );
 
+/** Who activated which version when: activating an earlier version is a rollback and gets a row too. */
+export const ruleSetActivations = sqliteTable(
+  "rule_set_activations",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    versionId: text("version_id")
+      .notNull()
+      .references(() => ruleSetVersions.id, { onDelete: "cascade" }),
+    activatedBy: text("activated_by").references(() => users.id, { onDelete: "set null" }),
+    activatedAt: createdAt(),
+  },
+  (t) => [index("rule_set_activations_site").on(t.siteId, t.id)],
+);
+
+/** A person's Test bench: a sandbox copy of the site state run against the active rules or the draft. */
+export const benchSessions = sqliteTable(
+  "bench_sessions",
+  {
+    id: text("id").primaryKey(),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    source: text("source", { enum: ["active", "draft"] }).notNull(),
+    /** The version run when source is "active"; the draft revision loaded when "draft". */
+    versionId: text("version_id"),
+    draftRevision: integer("draft_revision"),
+    /** EngineState (lib/bus/types.ts) of the sandbox. */
+    state: text("state", { mode: "json" }).$type<unknown>().notNull(),
+    createdAt: createdAt(),
+    updatedAt: integer("updated_at", { mode: "timestamp_ms" })
+      .notNull()
+      .$defaultFn(() => new Date()),
+  },
+  (t) => [uniqueIndex("bench_sessions_site_user").on(t.siteId, t.userId)],
+);
+
+/** What the bench did: the action a person took and the engine Step it produced. */
+export const benchSteps = sqliteTable(
+  "bench_steps",
+  {
+    seq: integer("seq").primaryKey({ autoIncrement: true }),
+    sessionId: text("session_id")
+      .notNull()
+      .references(() => benchSessions.id, { onDelete: "cascade" }),
+    at: integer("at").notNull(),
+    input: text("input", { mode: "json" }).$type<unknown>().notNull(),
+    output: text("output", { mode: "json" }).$type<unknown>().notNull(),
+  },
+  (t) => [index("bench_steps_session").on(t.sessionId, t.seq)],
+);
+
+/** A named, replayable sequence of bench actions. */
+export const benchScenarios = sqliteTable(
+  "bench_scenarios",
+  {
+    id: text("id").primaryKey(),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    steps: text("steps", { mode: "json" }).$type<unknown[]>().notNull(),
+    createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: integer("updated_at", { mode: "timestamp_ms" })
+      .notNull()
+      .$defaultFn(() => new Date()),
+  },
+  (t) => [uniqueIndex("bench_scenarios_site_name").on(t.siteId, t.name)],
+);
+
+/** A Replay (or a Compare of two) run off the request thread, with progress and cancel. */
+export const replayJobs = sqliteTable(
+  "replay_jobs",
+  {
+    id: text("id").primaryKey(),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    status: text("status", { enum: ["queued", "running", "done", "failed", "cancelled"] }).notNull().default("queued"),
+    /** Window, rule set(s) to run, filters (lib/validation). */
+    params: text("params", { mode: "json" }).$type<unknown>().notNull(),
+    processed: integer("processed").notNull().default(0),
+    total: integer("total").notNull().default(0),
+    cancelRequested: integer("cancel_requested", { mode: "boolean" }).notNull().default(false),
+    error: text("error"),
+    /** Timeline, level series and differences, sized for a browser (downsampled). */
+    result: text("result", { mode: "json" }).$type<unknown>(),
+    leaseOwner: text("lease_owner"),
+    leaseUntil: integer("lease_until"),
+    createdAt: createdAt(),
+    startedAt: integer("started_at", { mode: "timestamp_ms" }),
+    finishedAt: integer("finished_at", { mode: "timestamp_ms" }),
+  },
+  (t) => [index("replay_jobs_site").on(t.siteId, t.createdAt), index("replay_jobs_status").on(t.status)],
+);
+
+/** Small server-wide secrets and settings generated once (e.g. the VAPID key pair). */
+export const appSettings = sqliteTable("app_settings", {
+  key: text("key").primaryKey(),
+  value: text("value", { mode: "json" }).$type<unknown>().notNull(),
+  updatedAt: integer("updated_at", { mode: "timestamp_ms" })
+    .notNull()
+    .$defaultFn(() => new Date()),
+});
+
+/** A browser's push subscription (RFC 8030 endpoint and RFC 8291 keys). */
+export const pushSubscriptions = sqliteTable(
+  "push_subscriptions",
+  {
+    id: text("id").primaryKey(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    endpoint: text("endpoint").notNull().unique(),
+    p256dh: text("p256dh").notNull(),
+    auth: text("auth").notNull(),
+    /** "browser" or "demo" (a subscription taken from the local push service). */
+    origin: text("origin", { enum: ["browser", "demo"] }).notNull().default("browser"),
+    label: text("label").notNull().default(""),
+    createdAt: createdAt(),
+    lastSuccessAt: integer("last_success_at", { mode: "timestamp_ms" }),
+  },
+  (t) => [index("push_subscriptions_user").on(t.userId)],
+);
+
+/** A person's notice preferences on one site. */
+export const noticePreferences = sqliteTable(
+  "notice_preferences",
+  {
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    /** Notice kinds this person wants; null means all. */
+    kinds: text("kinds", { mode: "json" }).$type<string[] | null>(),
+    channels: text("channels", { mode: "json" }).$type<string[]>().notNull(),
+    /** Quiet hours in the site's time zone, "HH:MM"; both null when none. */
+    quietFrom: text("quiet_from"),
+    quietTo: text("quiet_to"),
+    updatedAt: integer("updated_at", { mode: "timestamp_ms" })
+      .notNull()
+      .$defaultFn(() => new Date()),
+  },
+  (t) => [primaryKey({ columns: [t.siteId, t.userId] })],
+);
+
+/** One outbox notice to one person on one channel: retries, backoff and the outcome. */
+export const noticeDeliveries = sqliteTable(
+  "notice_deliveries",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    outboxId: integer("outbox_id")
+      .notNull()
+      .references(() => noticesOutbox.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    channel: text("channel", { enum: ["push", "in-app", "email"] }).notNull(),
+    status: text("status", { enum: ["pending", "sent", "failed", "skipped", "collapsed"] }).notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: integer("next_attempt_at").notNull(),
+    lastError: text("last_error"),
+    /** How many notices this one stands for when a burst was collapsed into it. */
+    count: integer("count").notNull().default(1),
+    leaseOwner: text("lease_owner"),
+    leaseUntil: integer("lease_until"),
+    sentAt: integer("sent_at"),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("notice_deliveries_unique").on(t.outboxId, t.userId, t.channel),
+    index("notice_deliveries_due").on(t.status, t.nextAttemptAt),
+    index("notice_deliveries_user").on(t.userId, t.channel, t.createdAt),
+  ],
+);
+
+/** The in-app inbox. */
+export const inboxItems = sqliteTable(
+  "inbox_items",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    siteId: text("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    outboxId: integer("outbox_id").references(() => noticesOutbox.id, { onDelete: "set null" }),
+    kind: text("kind").notNull(),
+    text: text("text").notNull(),
+    url: text("url"),
+    count: integer("count").notNull().default(1),
+    at: integer("at").notNull(),
+    readAt: integer("read_at", { mode: "timestamp_ms" }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("inbox_items_outbox_user").on(t.outboxId, t.userId),
+    index("inbox_items_user").on(t.userId, t.readAt, t.at),
+  ],
+);
+
 export const sitesRelations = relations(sites, ({ many }) => ({
   zones: many(zones),
   devices: many(devices),
@@ -369,3 +584,9 @@ export type Floor = typeof floors.$inferSelect;
 export type Scene = typeof scenes.$inferSelect;
 export type RuleSetVersion = typeof ruleSetVersions.$inferSelect;
 export type ApiKey = typeof apiKeys.$inferSelect;
+export type BenchSession = typeof benchSessions.$inferSelect;
+export type BenchScenario = typeof benchScenarios.$inferSelect;
+export type ReplayJob = typeof replayJobs.$inferSelect;
+export type PushSubscription = typeof pushSubscriptions.$inferSelect;
+export type NoticePreference = typeof noticePreferences.$inferSelect;
+export type InboxItem = typeof inboxItems.$inferSelect;
