@@ -18,6 +18,8 @@ export const PERMISSIONS = {
   "rules.activate": ["integrator", "manager"],
   "bench.use": ["integrator", "manager"],
   "replay.use": ["integrator", "manager"],
+  /** Energy budget of the site's battery-free devices. */
+  "energy.view": ["integrator", "manager"],
   "notices.settings": ["integrator", "manager"],
   "emergency.clear": ["integrator", "manager"],
   /** Only scenes marked occupant-recallable, in the occupant's zones. */
