@@ -3,7 +3,7 @@ import { getDb } from "@/db";
 import { devices, engineStates, engineSteps, events, gatewayCommands, noticesOutbox, ruleSets, ruleSetVersions, scenes, sites, zones } from "@/db/schema";
 import { createEngine, type Engine } from "@/lib/bus/engine";
 import { toSiteInput } from "@/lib/bus/site-input";
-import type { DeviceEvent, EngineState, GatewayCommand, Step } from "@/lib/bus/types";
+import type { DeviceEvent, EngineState, GatewayCommand, Notice, Step } from "@/lib/bus/types";
 import type { RuleJson } from "@/lib/rules/compile";
 import { AppError } from "@/lib/errors";
 
@@ -26,6 +26,11 @@ export async function loadEngineInput(siteId: string) {
   return { input, rules: (version?.rules ?? []) as RuleJson[], versionId: version?.id ?? null, devices: deviceRows };
 }
 
+/** An outbox row for one notice; a click on it opens the site's overview. */
+function outboxRow(siteId: string, n: Notice) {
+  return { siteId, dedupeKey: n.dedupeKey, recipient: n.recipient, channels: n.channels, text: n.text, at: n.at, kind: n.kind, url: `/sites/${siteId}` };
+}
+
 function nextDue(state: EngineState): number | null {
   let min: number | null = null;
   for (const t of state.timers.entries) if (min === null || t.due < min) min = t.due;
@@ -46,7 +51,7 @@ async function storeStep(tx: Tx, siteId: string, step: Step, eventSeq: number | 
   if (step.notices.length) {
     await tx
       .insert(noticesOutbox)
-      .values(step.notices.map((n) => ({ siteId, dedupeKey: n.dedupeKey, recipient: n.recipient, channels: n.channels, text: n.text, at: n.at })))
+      .values(step.notices.map((n) => outboxRow(siteId, n)))
       .onConflictDoNothing();
   }
   return { stepSeq: row.seq, commands };
@@ -152,7 +157,7 @@ export async function ingestEvents({ siteId, batch, source }: { siteId: string; 
     // RETURNING order is not promised; inside this write transaction the new seqs are
     // consecutive in VALUES order, so sorting them lines them up with commandRows.
     const storedCommands = (await insertChunked(commandRows, (chunk) => tx.insert(gatewayCommands).values(chunk).returning({ seq: gatewayCommands.seq }))).sort((a, b) => a.seq - b.seq);
-    const notices = steps.flatMap((st) => st.notices.map((n) => ({ siteId, dedupeKey: n.dedupeKey, recipient: n.recipient, channels: n.channels, text: n.text, at: n.at })));
+    const notices = steps.flatMap((st) => st.notices.map((n) => outboxRow(siteId, n)));
     await insertChunked(notices, async (chunk) => {
       await tx.insert(noticesOutbox).values(chunk).onConflictDoNothing();
       return [];

@@ -2,6 +2,7 @@ import type { PathAction } from "@/lib/rules/compile";
 import type { IndexedRule } from "@/lib/rules/rule-index";
 import { ANY_MODE, triggerKey } from "@/lib/rules/trigger-key";
 import { formatMinuteOfDay, minuteOfDay } from "@/lib/sun/local-time";
+import { noticeKindFor } from "@/lib/rules/notice-kind";
 import { sendRelay } from "./emit";
 import { applyEmergency, describeWrite, holdZone } from "./actions-levels";
 import { writeLevels } from "./levels";
@@ -60,10 +61,11 @@ export function applyAction(rt: Runtime, occ: Occurrence, rule: IndexedRule, act
       const to = action.params.to;
       const recipients = "role" in to ? [`role:${to.role}`] : [...new Set(to.people)].map((p) => `person:${p}`);
       const text = renderNotice(rt, action.params.text, occ);
+      const kind = noticeKindFor(occ.type, action.params.kind);
       for (const recipient of recipients) {
         // Event + rule + action + recipient: a retried event never sends the same notice twice.
         const dedupeKey = `${occ.origin}/${rule.id}/${action.nodeId}/${recipient}`;
-        rt.out.notices.push(withCause(cause, { at, dedupeKey, recipient, channels: [...action.params.channels], text }));
+        rt.out.notices.push(withCause(cause, { at, dedupeKey, recipient, channels: [...action.params.channels], text, kind }));
       }
       return `Notice to ${recipients.join(", ")} by ${action.params.channels.join(", ")}.`;
     }

@@ -2,6 +2,7 @@ import type { DeviceKind } from "@/lib/catalogue/device-kinds";
 import type { RuleTrace } from "@/lib/rules/evaluate";
 import type { OverrideLevel } from "@/lib/rules/trigger-key";
 import type { SiteClock } from "@/lib/sun/schedule";
+import type { NoticeKind } from "@/lib/rules/notice-kind";
 import type { TimerEntry } from "./timer-queue";
 
 export type SiteConfig = SiteClock & {
@@ -83,7 +84,7 @@ export type GatewayCommand = Cause & {
   devices: string[];
 };
 
-export type Notice = Cause & { at: number; dedupeKey: string; recipient: string; channels: string[]; text: string };
+export type Notice = Cause & { at: number; dedupeKey: string; recipient: string; channels: string[]; text: string; kind: NoticeKind };
 
 export type ActionTrace = { ruleId: string | null; actionId: string | null; type: string; outcome: string };
 

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { ROLES } from "@/lib/auth/roles";
+import { NOTICE_KINDS } from "./notice-kind";
 import { deviceRef, fadeMs, level, modeName, nodeId, position, sceneNumber, timerName, wholeMinutes, zoneRef } from "./graph-fields";
 
 /** What happens when a path's gates all pass. */
@@ -41,6 +42,8 @@ export const actionNodeSchema = z.discriminatedUnion(
           .min(1, "Pick at least one channel."),
         // {device}, {zone} and {time} are filled in when the notice is sent.
         text: z.string({ error: "Write the notice text." }).trim().min(1, "Write the notice text.").max(500, "Keep notices under 500 characters."),
+        // What the notice is about, for people's preferences; left out, the trigger decides (motion → visitor …).
+        kind: z.enum(NOTICE_KINDS, { error: `Kinds are ${NOTICE_KINDS.join(", ")}.` }).optional(),
       }),
     ),
     action(

@@ -93,8 +93,8 @@ describe("actions", () => {
     const b = buttons([{ id: "a", type: "notice", params: { to: { people: ["p-1", "p-2", "p-1"] }, channels: ["push", "email"], text: "{device} pressed in {zone} at {time} {other}" } }]);
     const step = b.press(1, 5);
     expect(step.notices).toEqual([
-      { origin: "p0", ruleId: "t1", actionId: "a", at: T0 + 5 * MIN, dedupeKey: "p0/t1/a/person:p-1", recipient: "person:p-1", channels: ["push", "email"], text: "Shop door rocker pressed in Shop floor at 08:05 {other}" },
-      { origin: "p0", ruleId: "t1", actionId: "a", at: T0 + 5 * MIN, dedupeKey: "p0/t1/a/person:p-2", recipient: "person:p-2", channels: ["push", "email"], text: "Shop door rocker pressed in Shop floor at 08:05 {other}" },
+      { origin: "p0", ruleId: "t1", actionId: "a", at: T0 + 5 * MIN, dedupeKey: "p0/t1/a/person:p-1", recipient: "person:p-1", channels: ["push", "email"], text: "Shop door rocker pressed in Shop floor at 08:05 {other}", kind: "other" },
+      { origin: "p0", ruleId: "t1", actionId: "a", at: T0 + 5 * MIN, dedupeKey: "p0/t1/a/person:p-2", recipient: "person:p-2", channels: ["push", "email"], text: "Shop door rocker pressed in Shop floor at 08:05 {other}", kind: "other" },
     ]);
   });
 
@@ -169,3 +169,15 @@ describe("actions", () => {
 function hexLe(v: number): string {
   return [v & 0xff, v >> 8].map((b) => b.toString(16).toUpperCase().padStart(2, "0")).join(" ");
 }
+
+describe("notice kind", () => {
+  it("follows the trigger unless the action names one", async () => {
+    const { noticeKindFor } = await import("@/lib/rules/notice-kind");
+    expect(noticeKindFor("motion-detected")).toBe("visitor");
+    expect(noticeKindFor("call-button-press")).toBe("call");
+    expect(noticeKindFor("contact-left-open")).toBe("door");
+    expect(noticeKindFor("fire-alarm-active")).toBe("emergency");
+    expect(noticeKindFor("rocker-press")).toBe("other");
+    expect(noticeKindFor("motion-detected", "care")).toBe("care");
+  });
+});
