@@ -21,7 +21,9 @@ import { buildRuleIndex, type RuleIndex, type ThresholdWatch } from "@/lib/rules
 import { prng } from "../lib/random/prng";
 
 const SEED = 20240620;
-const SIZES = [20, 200, 2000];
+// BENCH_SIZES=200 BENCH_ONLY=replay narrows a run (e.g. under --cpu-prof); the ceiling always runs, for the ratios.
+const SIZES = process.env.BENCH_SIZES ? process.env.BENCH_SIZES.split(",").map(Number) : [20, 200, 2000];
+const ONLY = process.env.BENCH_ONLY ?? "";
 const EVENTS = 20_000;
 // The replay path needs ~10^5 events before V8 has compiled its hot paths: warm each figure for a second.
 const WARM_MS = 1000;
@@ -194,14 +196,18 @@ async function main() {
     const index = buildRuleIndex(rules);
     if (size === 2000) index2000 = index;
     const figures: [string, number][] = [];
-    for (const [name, make] of Object.entries(makers)) figures.push([name, await rate(() => make(index, rules, events))]);
-    const ceiling = figures[0][1];
+    for (const [name, make] of Object.entries(makers)) {
+      if (ONLY && !name.includes(ONLY) && !(name.includes("ceiling") && !process.env.BENCH_PROFILE)) continue;
+      figures.push([name, await rate(() => make(index, rules, events))]);
+    }
+    const ceiling = figures.find(([name]) => name.includes("ceiling"))?.[1] ?? NaN;
     for (const [name, r] of figures) rows.push(`${String(size).padStart(5)}  ${name.padEnd(46)} ${Math.round(r).toLocaleString("en").padStart(12)}  ${(r / ceiling).toFixed(3).padStart(7)}`);
     rows.push("");
   }
   console.log(`rules  ${"path".padEnd(46)} ${"events/s".padStart(12)}  ${"× ceil".padStart(7)}`);
   console.log(rows.join("\n"));
 
+  if (!index2000) return;
   // A warm engine (its per-key Engines already built by the figures above), timed event by event.
   const live = createEngine({ ...site, rules: index2000! });
   const next = streamFor(events);

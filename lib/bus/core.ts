@@ -17,7 +17,9 @@ import type { DeviceEvent, Step, TraceEntry } from "./types";
  */
 const MAX_CASCADE_DEPTH = 16;
 const MAX_CASCADE_TRIGGERS = 256;
-const RECENT_IDS = 1000;
+// The event log's unique (site, event id) makes live ingest idempotent; this list only catches
+// repeats close together in a stream (a bench, an import) and is rewritten with the state on every call.
+const RECENT_IDS = 128;
 
 export type Pending = { occ: Occurrence; group: RuleGroup; facts: Facts };
 type Batch = { entry: TraceEntry; isMatched: boolean };

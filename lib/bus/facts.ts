@@ -22,14 +22,9 @@ class RuntimeFacts implements FactSource {
 
   clock(): Clock {
     if (!this.clockValue) {
-      const { timeZone, latitude, longitude } = this.rt.model.site;
       const p = this.local();
-      const sun = sunTimesOn(p, latitude, longitude);
-      this.clockValue = {
-        minute: p.hour * 60 + p.minute,
-        sunrise: sun.sunrise === null ? null : minuteOfDay(sun.sunrise, timeZone),
-        sunset: sun.sunset === null ? null : minuteOfDay(sun.sunset, timeZone),
-      };
+      const sun = sunMinutes(this.rt.model.site, p);
+      this.clockValue = { minute: p.hour * 60 + p.minute, sunrise: sun.sunrise, sunset: sun.sunset };
     }
     return this.clockValue;
   }
@@ -53,6 +48,26 @@ class RuntimeFacts implements FactSource {
   isZoneOccupied(zone: string): boolean {
     return isZoneOccupied(this.rt, zone);
   }
+}
+
+type SunMinutes = { sunrise: number | null; sunset: number | null };
+// Sunrise and sunset in local minutes per site and local date: a pure function of
+// both, asked on every time gate, so remember them (a cache, bounded).
+const sunCache = new Map<string, SunMinutes>();
+
+function sunMinutes(site: Runtime["model"]["site"], date: Readonly<LocalDateTime>): SunMinutes {
+  const key = `${site.latitude}|${site.longitude}|${site.timeZone}|${date.year}-${date.month}-${date.day}`;
+  let hit = sunCache.get(key);
+  if (!hit) {
+    const sun = sunTimesOn(date, site.latitude, site.longitude);
+    hit = {
+      sunrise: sun.sunrise === null ? null : minuteOfDay(sun.sunrise, site.timeZone),
+      sunset: sun.sunset === null ? null : minuteOfDay(sun.sunset, site.timeZone),
+    };
+    if (sunCache.size >= 4096) sunCache.clear();
+    sunCache.set(key, hit);
+  }
+  return hit;
 }
 
 export function factSource(rt: Runtime, at: number): FactSource {

@@ -78,7 +78,8 @@ export function localMinuteParts(ms: number, timeZone: string): Readonly<LocalDa
 
 /** Minutes since local midnight (0–1439) at instant `ms`. */
 export function minuteOfDay(ms: number, timeZone: string): number {
-  const p = localParts(ms, timeZone);
+  // The seconds do not count here, so the per-minute cache serves.
+  const p = localMinuteParts(ms, timeZone);
   return p.hour * 60 + p.minute;
 }
 
