@@ -98,8 +98,7 @@ export function siteRoute<S extends z.ZodType<{ siteId: string }> = typeof siteP
 export async function readJson<S extends z.ZodType>(request: Request, schema: S, maxBytes = 64 * 1024): Promise<z.infer<S>> {
   const length = Number(request.headers.get("content-length") ?? "0");
   if (length > maxBytes) throw new AppError("too_large", `The request body is larger than ${maxBytes} bytes.`);
-  const text = await request.text();
-  if (text.length > maxBytes) throw new AppError("too_large", `The request body is larger than ${maxBytes} bytes.`);
+  const text = await readLimitedText(request, maxBytes);
   let data: unknown;
   try {
     data = text ? JSON.parse(text) : {};
@@ -107,4 +106,27 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S,
     throw new AppError("bad_request", "The request body is not valid JSON.");
   }
   return schema.parse(data);
+}
+
+/**
+ * The body as UTF-8 text, counting bytes as they arrive: a body sent without a
+ * Content-Length (chunked) is refused as soon as it passes `maxBytes`, never buffered whole.
+ */
+export async function readLimitedText(request: Request, maxBytes: number): Promise<string> {
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const decoder = new TextDecoder();
+  let received = 0;
+  let text = "";
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    received += value.byteLength;
+    if (received > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      throw new AppError("too_large", `The request body is larger than ${maxBytes} bytes.`);
+    }
+    text += decoder.decode(value, { stream: true });
+  }
+  return text + decoder.decode();
 }
