@@ -5,7 +5,7 @@ const config = [
   ...nextCoreWebVitals,
   ...nextTypescript,
   {
-    ignores: [".next/**", "node_modules/**", "data/**", "db/migrations/**", "test-results/**", "playwright-report/**", "next-env.d.ts"],
+    ignores: [".next/**", "node_modules/**", "data/**", "db/migrations/**", "test-results/**", "playwright-report/**", "next-env.d.ts", "tmp/**", "tmp-shots.ts"],
   },
   {
     rules: {

@@ -1,5 +1,6 @@
 import { and, asc, eq, gt, inArray, isNull, lt, lte, or } from "drizzle-orm";
 import { getDb } from "@/db";
+import { serialisedWrite } from "@/db/write-lock";
 import { devices, engineStates, engineSteps, events, gatewayCommands, noticesOutbox, ruleSets, ruleSetVersions, scenes, sites, zones } from "@/db/schema";
 import { createEngine, type Engine } from "@/lib/bus/engine";
 import { toSiteInput } from "@/lib/bus/site-input";
@@ -57,17 +58,6 @@ async function storeStep(tx: Tx, siteId: string, step: Step, eventSeq: number | 
   return { stepSeq: row.seq, commands };
 }
 
-// One write transaction at a time per process. The SQLite driver is synchronous,
-// so a second BEGIN IMMEDIATE while the first awaits would spin in the busy
-// handler on the main thread; queueing here costs nothing. (A coordination
-// primitive, not shared data: other processes are serialised by the database.)
-const holder = globalThis as unknown as { joulepathLiveLock?: Promise<unknown> };
-function serialised<T>(work: () => Promise<T>): Promise<T> {
-  const run = (holder.joulepathLiveLock ?? Promise.resolve()).then(work, work);
-  holder.joulepathLiveLock = run.catch(() => undefined);
-  return run;
-}
-
 /**
  * Runs `work` on the site's live engine inside one write transaction: state,
  * events, steps, commands and notices go in together or not at all, so a crash
@@ -75,7 +65,7 @@ function serialised<T>(work: () => Promise<T>): Promise<T> {
  * database's write lock; the revision check guards against a stale read anyway.
  */
 async function withLiveEngine<T>(siteId: string, work: (engine: Engine, tx: Tx, versionId: string | null) => Promise<T>): Promise<T> {
-  return serialised(() => runLive(siteId, work));
+  return serialisedWrite(() => runLive(siteId, work));
 }
 
 async function runLive<T>(siteId: string, work: (engine: Engine, tx: Tx, versionId: string | null) => Promise<T>): Promise<T> {

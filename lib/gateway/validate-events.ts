@@ -1,3 +1,4 @@
+import { READING_RANGES } from "@/lib/catalogue/sensor-ranges";
 import { z } from "zod";
 import { DEVICE_KIND_INFO, type DeviceKind } from "@/lib/catalogue/device-kinds";
 import type { DeviceEvent } from "@/lib/bus/types";
@@ -25,12 +26,10 @@ export const gatewayBatchSchema = z
 export type SiteDevice = { id: string; name: string; kind: DeviceKind; unicastAddress: number; elementCount: number; profile?: Record<string, unknown> };
 export type ItemError = { index: number; id?: string; field: string; message: string };
 
-/** Ranges a sensor can physically report (common practice, no source): anything outside is a fault, not a reading. */
-const RANGES = { "light-level": [0, 200_000, "lx"], temperature: [-40, 85, "°C"], humidity: [0, 100, "%RH"] } as const;
 
 function checkValue(kind: string, value: unknown, device: SiteDevice): string | null {
-  if (kind in RANGES) {
-    const [min, max, unit] = RANGES[kind as keyof typeof RANGES];
+  if (kind in READING_RANGES) {
+    const { min, max, unit } = READING_RANGES[kind as keyof typeof READING_RANGES];
     if (typeof value !== "number") return `a ${kind} reading is a number in ${unit}`;
     if (value < min || value > max) return `${value} ${unit} is outside what a sensor reports (${min}–${max} ${unit})`;
   }

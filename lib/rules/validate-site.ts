@@ -1,14 +1,10 @@
+import { SENSOR_RANGES } from "@/lib/catalogue/sensor-ranges";
 import { DEVICE_KIND_INFO } from "@/lib/catalogue/device-kinds";
 import type { RuleGraph } from "./graph";
 import { TRIGGER_REPORT } from "./trigger-key";
 import type { Problem, SiteContext } from "./validate";
 
 /** What each kind of sensor can measure: beyond it the threshold never trips (common practice for indoor sensors, no source). */
-export const SENSOR_RANGES = {
-  lux: { min: 0, max: 100_000, unit: "lx" },
-  celsius: { min: -40, max: 85, unit: "°C" },
-  percent: { min: 0, max: 100, unit: "%RH" },
-} as const;
 
 const REPORT_WORDS: Record<string, string> = {
   press: "button presses",
