@@ -9,6 +9,7 @@ import { removeUploadFile, saveUploadFile } from "../files";
 import { compileGraph } from "../../lib/rules/compile";
 import { demoRuleGraph } from "../../lib/rules/demo-graph";
 import { devices, floors, memberships, ruleSets, ruleSetVersions, scenes, sites, uploads, users, zones } from "../schema";
+import { seedBenchScenarios } from "./bench-scenarios";
 import { demoDevices, demoFloors, demoScenes, demoSite, demoZones } from "./demo-site";
 import { DEMO_PASSWORD, demoUsers } from "./demo-users";
 
@@ -59,6 +60,7 @@ export async function seedDemo(db: Database, options: { withUsers?: boolean } = 
         await tx.insert(ruleSetVersions).values({ id: versionId, siteId: demoSite.id, number: 1, graph: demoRuleGraph, rules: compileGraph(demoRuleGraph) }).onConflictDoNothing();
         await tx.update(ruleSets).set({ activeVersionId: versionId }).where(eq(ruleSets.siteId, demoSite.id));
       }
+      await seedBenchScenarios(tx);
       let u: { id: string }[] = [];
       if (withUsers) {
         u = await tx
