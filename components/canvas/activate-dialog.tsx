@@ -1,0 +1,123 @@
+"use client";
+
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
+import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import { sendJson } from "@/components/devices/use-inventory";
+import type { Problem } from "@/lib/rules/validate";
+import type { ActivateDto, DiffDto } from "@/lib/validation/rules";
+import { Dialog } from "./dialog";
+
+/** The change summary, rule by rule, in sentences. */
+export function DiffSummary({ diff }: { diff: DiffDto }) {
+  if (diff.sentences.length === 0) return <p className="text-sm">No rule changes: {diff.to.label} behaves exactly like {diff.from.label}.</p>;
+  const block = (title: string, items: React.ReactNode[], mark: string) =>
+    items.length ? (
+      <div>
+        <h3 className="mt-2 text-sm font-bold">
+          {title} ({items.length})
+        </h3>
+        <ul className="mt-1 space-y-1.5">
+          {items.map((t, i) => (
+            <li key={i} className="flex gap-2 text-sm">
+              <span aria-hidden="true" className="w-4 shrink-0 font-bold text-slate">
+                {mark}
+              </span>
+              <span>{t}</span>
+            </li>
+          ))}
+        </ul>
+      </div>
+    ) : null;
+  return (
+    <div aria-label="Changes" className="space-y-1">
+      {block("Rules added", diff.added, "+")}
+      {block("Rules removed", diff.removed, "−")}
+      {block(
+        "Rules changed",
+        diff.changed.map((c, i) => (
+          <span key={i}>
+            <span className="text-slate">Was:</span> {c.before}
+            <br />
+            <span className="text-slate">Now:</span> {c.after}
+          </span>
+        )),
+        "~",
+      )}
+      <p className="pt-1 text-xs text-slate">{diff.unchanged} rule{diff.unchanged === 1 ? "" : "s"} unchanged.</p>
+    </div>
+  );
+}
+
+/** Activate: read what changes against the active version, then confirm. */
+export function ActivateDialog({
+  siteId,
+  open,
+  revision,
+  activeNumber,
+  problems,
+  onClose,
+  onActivated,
+}: {
+  siteId: string;
+  open: boolean;
+  revision: number;
+  activeNumber: number | null;
+  problems: Problem[];
+  onClose: () => void;
+  onActivated: (v: ActivateDto) => void;
+}) {
+  const client = useQueryClient();
+  const diff = useQuery({ queryKey: ["sites", siteId, "rules", "diff", "active", "draft", revision], queryFn: () => fetchJson<DiffDto>(`/api/sites/${siteId}/rules/diff?from=active&to=draft`), enabled: open, staleTime: 0 });
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const errors = problems.filter((p) => p.severity === "error");
+
+  const confirm = async () => {
+    setBusy(true);
+    setError(null);
+    try {
+      const v = await sendJson<ActivateDto>(`/api/sites/${siteId}/rules/activate`, "POST", { revision });
+      await client.invalidateQueries({ queryKey: ["sites", siteId, "rules"] });
+      onActivated(v);
+    } catch (err) {
+      setError(err instanceof ApiError ? err.message : "The console could not reach the server.");
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <Dialog open={open} title="Activate the draft" onClose={onClose} wide>
+      <p className="mb-2 text-sm text-slate">
+        What changes against {activeNumber ? `the active version ${activeNumber}` : "no active rules"}. Read it through; activating makes the draft the next numbered version and the site runs it at once.
+      </p>
+      {diff.isPending ? <p role="status">Working out the changes…</p> : null}
+      {diff.isError ? <p role="alert" className="text-clay">{diff.error.message}</p> : null}
+      {diff.data ? <DiffSummary diff={diff.data} /> : null}
+      {errors.length ? (
+        <div role="alert" className="mt-3 rounded-md border border-clay p-2 text-sm">
+          <p className="font-bold text-clay">Fix {errors.length === 1 ? "this problem" : `these ${errors.length} problems`} before activating:</p>
+          <ul className="list-disc pl-5">
+            {errors.map((p, i) => (
+              <li key={i}>{p.message}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      {error ? (
+        <p role="alert" className="mt-3 font-semibold text-clay">
+          {error}
+        </p>
+      ) : null}
+      <div className="mt-4 flex justify-end gap-2">
+        <button type="button" onClick={onClose} className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-fog">
+          Cancel
+        </button>
+        <button type="button" disabled={busy || errors.length > 0 || !diff.data} onClick={() => void confirm()} className="rounded-md bg-moss px-3 py-1.5 text-sm font-semibold text-paper disabled:opacity-50">
+          {busy ? "Activating…" : "Activate these changes"}
+        </button>
+      </div>
+    </Dialog>
+  );
+}

@@ -1,0 +1,17 @@
+"use client";
+
+import { createContext, useContext } from "react";
+import type { PaletteSite } from "@/lib/rules/palette";
+import type { SiteNames } from "@/lib/rules/sentence";
+import type { Problem } from "@/lib/rules/validate";
+
+/** What every node on the Canvas reads besides its own data: names to show and the problems found. */
+export type CanvasContextValue = { names: SiteNames; site: PaletteSite; problemsByNode: Map<string, Problem[]>; isReadOnly: boolean };
+
+export const CanvasContext = createContext<CanvasContextValue | null>(null);
+
+export function useCanvasContext(): CanvasContextValue {
+  const value = useContext(CanvasContext);
+  if (!value) throw new Error("Canvas nodes render inside the Canvas.");
+  return value;
+}
