@@ -1,0 +1,238 @@
+/**
+ * Replay throughput over a year of one site, against the raw read rate.
+ *   - builds a synthetic 60-device site (30 luminaires in 10 zones, 12 rockers,
+ *     8 light sensors, 4 climate sensors, 6 motion sensors) with 200 rules and a
+ *     seeded year of about a million events, stored in a throwaway SQLite file;
+ *   - baseline: reads every row back in time order through the libSQL client in
+ *     keyset pages of 2,000 on (site, at, seq) — the raw rate, touching each value;
+ *   - Replay: the same window through `replayLog` (db/queries/replays.ts: the
+ *     worker's code path — pages, JSON values, the replay engine, timeline,
+ *     series), events/s and its ratio to the raw rate; then a Compare (two rule
+ *     sets at once) the same way;
+ *   - peak RSS and the heap at each quarter of the replay, to show memory stays flat.
+ * Run: npx tsx bench/replay.ts            (~2–3 min on 2 cores)
+ *      npx tsx bench/replay.ts --events 200000   (a smaller year, for a quick look)
+ */
+import { randomUUID } from "node:crypto";
+import { mkdirSync, rmSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { performance } from "node:perf_hooks";
+import type { DeviceKind } from "@/lib/catalogue/device-kinds";
+import { compileGraph, type RuleJson } from "@/lib/rules/compile";
+import { chainEdges, parseRuleGraph, type RuleGraphInput } from "@/lib/rules/graph";
+import { allowServerOnly } from "@/workers/engine-worker";
+import { prng } from "../lib/random/prng";
+
+const SEED = 20241112;
+const SITE = "bench-year";
+const RULES = 200;
+const argEvents = process.argv.indexOf("--events");
+const EVENTS = argEvents > 0 ? Number(process.argv[argEvents + 1]) : 1_000_000;
+const PAGE = 2000;
+const YEAR_START = Date.UTC(2024, 0, 1);
+const YEAR_MS = 366 * 86_400_000;
+
+const dir = path.join(os.tmpdir(), `joulepath-bench-replay-${randomUUID()}`);
+mkdirSync(dir, { recursive: true });
+process.env.DATABASE_URL = `file:${path.join(dir, "bench.db")}`;
+process.env.UPLOAD_DIR = path.join(dir, "uploads");
+const cleanup = () => rmSync(dir, { recursive: true, force: true });
+process.once("SIGINT", () => {
+  cleanup();
+  process.exit(130);
+});
+
+type Dev = { id: string; kind: DeviceKind; zone: string };
+const zones = Array.from({ length: 10 }, (_, i) => `${SITE}-z${i}`);
+const devs: Dev[] = [];
+const add = (n: number, prefix: string, kind: DeviceKind) => {
+  for (let i = 0; i < n; i++) devs.push({ id: `${SITE}-${prefix}-${i}`, kind, zone: zones[i % zones.length] });
+};
+add(30, "lum", "mesh-luminaire");
+add(12, "rocker", "kinetic-rocker");
+add(8, "lux", "light-sensor");
+add(4, "climate", "climate-sensor");
+add(6, "motion", "solar-motion-light");
+const byKind = (k: DeviceKind) => devs.filter((d) => d.kind === k).map((d) => d.id);
+
+function synthGraph(rand: () => number): RuleGraphInput {
+  const pick = <T>(xs: T[]) => xs[Math.floor(rand() * xs.length)];
+  const int = (lo: number, hi: number) => lo + Math.floor(rand() * (hi - lo + 1));
+  const nodes: RuleGraphInput["nodes"] = [];
+  const edges: RuleGraphInput["edges"] = [];
+  for (let i = 0; i < RULES; i++) {
+    const r = rand();
+    const trigger =
+      r < 0.5 ? { type: "rocker-press", params: { device: pick(byKind("kinetic-rocker")), button: int(1, 4) } }
+      : r < 0.75 ? { type: pick(["light-level-below", "light-level-above"]), params: { device: pick(byKind("light-sensor")), lux: int(1, 40) * 25, hysteresisLux: 20 } }
+      : r < 0.85 ? { type: "temperature-above", params: { device: pick(byKind("climate-sensor")), celsius: int(20, 30), hysteresis: 0.5 } }
+      : r < 0.95 ? { type: "motion-detected", params: { device: pick(byKind("solar-motion-light")) } }
+      : { type: "vacancy", params: { device: pick(byKind("solar-motion-light")), minutes: int(2, 20) } };
+    nodes.push({ id: `t${i}`, kind: "trigger", ...trigger } as RuleGraphInput["nodes"][number]);
+    const gates: string[] = [];
+    for (let g = 0; g < int(0, 2); g++) {
+      const q = rand();
+      const gate =
+        q < 0.4 ? { type: "site-mode-is", params: { modes: [pick(["open", "closed"])] } }
+        : q < 0.7 ? { type: "light-level-below", params: { device: pick(byKind("light-sensor")), lux: int(1, 40) * 25 } }
+        : q < 0.85 ? { type: "zone-occupied", params: { zone: pick(zones) } }
+        : q < 0.95 ? { type: "days-of-week", params: { days: ["mon", "tue", "wed", "thu", "fri"] } }
+        : { type: "time-window", params: { from: { kind: "fixed", time: "07:00" }, to: { kind: "fixed", time: "19:00" } } };
+      nodes.push({ id: `g${i}-${g}`, kind: "gate", ...gate } as RuleGraphInput["nodes"][number]);
+      gates.push(`g${i}-${g}`);
+    }
+    nodes.push({ id: `a${i}`, kind: "action", type: "set-level", params: { target: { zone: pick(zones) }, level: int(0, 10) * 10, fadeMs: 1000 } });
+    edges.push(...chainEdges(`t${i}`, ...gates, `a${i}`));
+  }
+  // The site mode follows the clock, as at a real shop.
+  nodes.push({ id: "t-open", kind: "trigger", type: "time-of-day", params: { at: { kind: "fixed", time: "09:00" } } }, { id: "a-open", kind: "action", type: "set-site-mode", params: { mode: "open" } });
+  nodes.push({ id: "t-close", kind: "trigger", type: "time-of-day", params: { at: { kind: "fixed", time: "18:00" } } }, { id: "a-close", kind: "action", type: "set-site-mode", params: { mode: "closed" } });
+  edges.push(...chainEdges("t-open", "a-open"), ...chainEdges("t-close", "a-close"));
+  return { nodes, edges };
+}
+
+/** The year's events in time order, a chunk at a time (never all in memory). */
+function* yearOfEvents(rand: () => number): Generator<[string, number, string, string, string]> {
+  const gap = YEAR_MS / EVENTS;
+  let at = YEAR_START;
+  const rockers = byKind("kinetic-rocker");
+  const luxes = byKind("light-sensor");
+  const climates = byKind("climate-sensor");
+  const motions = byKind("solar-motion-light");
+  for (let i = 0; i < EVENTS; i++) {
+    at += Math.max(1, Math.floor(rand() * 2 * gap));
+    const r = rand();
+    let device: string, kind: string, value: unknown;
+    if (r < 0.45) [device, kind, value] = [luxes[Math.floor(rand() * luxes.length)], "light-level", Math.floor(rand() * 1100)];
+    else if (r < 0.65) [device, kind, value] = [climates[Math.floor(rand() * climates.length)], rand() < 0.5 ? "temperature" : "humidity", rand() < 0.5 ? 18 + Math.floor(rand() * 140) / 10 : 35 + Math.floor(rand() * 40)];
+    else if (r < 0.85) [device, kind, value] = [motions[Math.floor(rand() * motions.length)], "motion", true];
+    else [device, kind, value] = [rockers[Math.floor(rand() * rockers.length)], "press", 1 + Math.floor(rand() * 4)];
+    if (kind === "humidity" && (value as number) > 100) value = 100;
+    yield [`y${i}`, at, device, kind, JSON.stringify(value)];
+  }
+}
+
+const mib = (b: number) => (b / 1024 / 1024).toFixed(0);
+const fmt = (n: number) => Math.round(n).toLocaleString("en-GB");
+
+async function main() {
+  allowServerOnly();
+  const { getDb } = await import("@/db");
+  const { migrateDatabase } = await import("@/db/migrate");
+  const schema = await import("@/db/schema");
+  const { replayLog, resolveRuleSet } = await import("@/db/queries/replays");
+  const db = getDb();
+  await migrateDatabase(db);
+  const client = db.$client;
+
+  console.log(`Replay bench — node ${process.version}, ${os.cpus().length} CPUs, seed ${SEED}, ${fmt(EVENTS)} events, ${RULES} rules, ${devs.length} devices`);
+  const rand = prng(SEED);
+  await db.insert(schema.sites).values({ id: SITE, name: "Bench year site", timeZone: "WET", latitude: 51.2, longitude: -2.1 });
+  await db.insert(schema.zones).values(zones.map((id, i) => ({ id, siteId: SITE, name: `Zone ${i}`, groupAddress: 0xc000 + i, sortOrder: i })));
+  await db.insert(schema.devices).values(devs.map((d, i) => ({ id: d.id, siteId: SITE, zoneId: d.zone, name: d.id, kind: d.kind, unicastAddress: i * 2 + 1, elementCount: 1, profile: d.kind === "kinetic-rocker" ? { buttons: 4 } : {} })));
+  const rulesA: RuleJson[] = compileGraph(parseRuleGraph(synthGraph(rand)));
+  const rulesB: RuleJson[] = compileGraph(parseRuleGraph(synthGraph(prng(SEED + 1))));
+  await db.insert(schema.ruleSetVersions).values([
+    { id: "bench-v1", siteId: SITE, number: 1, graph: {}, rules: rulesA },
+    { id: "bench-v2", siteId: SITE, number: 2, graph: {}, rules: rulesB },
+  ]);
+  await db.insert(schema.ruleSets).values({ siteId: SITE, draftGraph: { nodes: [], edges: [] }, draftRevision: 1, activeVersionId: "bench-v1" });
+
+  // ——— store the year ———
+  let t0 = performance.now();
+  const ROWS = 400;
+  let batch: (string | number)[] = [];
+  let rows = 0;
+  const placeholders = (n: number) => Array.from({ length: n }, () => "(?, ?, ?, ?, ?, ?, 'import', 0)").join(",");
+  let tx = await client.transaction("write");
+  const flush = async () => {
+    if (!rows) return;
+    await tx.execute({ sql: `INSERT INTO events (site_id, event_id, at, device, kind, value, source, received_at) VALUES ${placeholders(rows)}`, args: batch });
+    batch = [];
+    rows = 0;
+  };
+  let n = 0;
+  for (const [id, at, device, kind, value] of yearOfEvents(rand)) {
+    batch.push(SITE, id, at, device, kind, value);
+    rows++;
+    if (rows === ROWS) await flush();
+    if (++n % 100_000 === 0) {
+      await tx.commit();
+      tx = await client.transaction("write");
+    }
+  }
+  await flush();
+  await tx.commit();
+  const stored = Number((await client.execute({ sql: "SELECT count(*) FROM events WHERE site_id = ?", args: [SITE] })).rows[0][0]);
+  console.log(`stored ${fmt(stored)} events in ${((performance.now() - t0) / 1000).toFixed(1)} s (${mib((await import("node:fs")).statSync(path.join(dir, "bench.db")).size)} MiB file)`);
+
+  // ——— baseline: raw keyset read ———
+  const rawRead = async () => {
+    const start = performance.now();
+    let at = -1;
+    let seq = -1;
+    let count = 0;
+    let touch = 0;
+    for (;;) {
+      const rs = await client.execute({ sql: "SELECT seq, event_id, at, device, kind, value FROM events WHERE site_id = ? AND at >= ? AND (at > ? OR seq > ?) AND at < ? ORDER BY at, seq LIMIT ?", args: [SITE, at, at, seq, YEAR_START + YEAR_MS + 1, PAGE] });
+      for (const r of rs.rows) touch += (r[1] as string).length + (r[5] as string).length;
+      count += rs.rows.length;
+      if (rs.rows.length < PAGE) break;
+      const last = rs.rows[rs.rows.length - 1];
+      at = Number(last[2]);
+      seq = Number(last[0]);
+    }
+    return { count, ms: performance.now() - start, touch };
+  };
+  await rawRead(); // warm the page cache
+  const raw = await rawRead();
+  const rawRate = raw.count / (raw.ms / 1000);
+  console.log(`\nA. raw read in time order (libSQL client, keyset pages of ${PAGE} on (site, at, seq)): ${fmt(raw.count)} rows in ${(raw.ms / 1000).toFixed(2)} s = ${fmt(rawRate)} rows/s  [baseline 1.00]`);
+
+  // ——— Replay through the worker's code path ———
+  const window = { from: YEAR_START, to: YEAR_START + YEAR_MS + 1 };
+  const active = await resolveRuleSet({ siteId: SITE, choice: { kind: "active" } });
+  const other = await resolveRuleSet({ siteId: SITE, choice: { kind: "version", versionId: "bench-v2" } });
+  let peakRss = process.memoryUsage().rss;
+  const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 50);
+  const measure = async (label: string, runs: typeof active[]) => {
+    global.gc?.();
+    const heaps: string[] = [];
+    const marks = [0.25, 0.5, 0.75, 1].map((f) => Math.floor(f * stored));
+    t0 = performance.now();
+    const result = await replayLog({
+      siteId: SITE,
+      params: { ...window, filter: {}, runs },
+      pageSize: PAGE,
+      onPage: async (processed) => {
+        while (marks.length && processed >= marks[0]) {
+          marks.shift();
+          heaps.push(mib(process.memoryUsage().heapUsed));
+        }
+        return true;
+      },
+    });
+    const ms = performance.now() - t0;
+    const rate = result!.events / (ms / 1000);
+    const counts = result!.runs.map((r) => `${fmt(r.counts.firings)} firings, ${fmt(r.counts.changes)} changes`).join(" | ");
+    console.log(`${label}: ${fmt(result!.events)} events in ${(ms / 1000).toFixed(2)} s = ${fmt(rate)} events/s  [${(rate / rawRate).toFixed(2)} of raw]  (${counts}; result ${mib(JSON.stringify(result).length)} MiB JSON)`);
+    console.log(`   heap used at 25/50/75/100 % of the log: ${heaps.join(" / ")} MiB`);
+    return result!;
+  };
+  console.log("");
+  await measure("B. Replay, 200 rules (replayLog: pages + engine + timeline + series)", [active]);
+  const cmp = await measure("C. Compare, 200 rules vs another 200", [active, other]);
+  clearInterval(sampler);
+  console.log(`   Compare found ${fmt(cmp.compare!.root)} steps deciding differently, ${fmt(cmp.compare!.knockOn)} following from them.`);
+  console.log(`\npeak RSS ${mib(peakRss)} MiB over the whole run; the timeline, differences and series are capped, and one page of ${PAGE} rows is in memory at a time.`);
+  client.close();
+}
+
+main()
+  .then(cleanup)
+  .catch((err) => {
+    cleanup();
+    console.error(err);
+    process.exit(1);
+  });
