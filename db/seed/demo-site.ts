@@ -39,6 +39,13 @@ export const demoZones: NewZone[] = zoneSeeds.map((z, i) => ({
   sortOrder: i,
 }));
 
+// Installed values for the demo's solar devices (invented, not a maker's figures), so the
+// Energy budget shows what a commissioned site looks like rather than typical defaults.
+const DEMO_SOURCE = "Demo values (invented for Larch Lane Studio)";
+const demoStorage = { capacitance: { value: 0.47, unit: "F" }, vMax: 3.6, vMin: 2.2, leakageUa: 0.3, source: DEMO_SOURCE };
+const caseCell = { type: "solar", cellAreaCm2: 5, efficiencyPct: 15, exposure: "interior", daylightFactorPct: 0, source: `${DEMO_SOURCE}; organic PV reaches 26.1 % at 1000 lx (Cui et al., Nature Energy 2019)` };
+const solar = (harvester?: Record<string, unknown>) => ({ energy: { storage: demoStorage, ...(harvester ? { harvester } : {}) } });
+
 type DeviceSeed = { key: string; name: string; kind: DeviceKind; zone: string | null; elements?: number; profile?: Record<string, unknown> };
 
 const deviceSeeds: DeviceSeed[] = [
@@ -54,15 +61,15 @@ const deviceSeeds: DeviceSeed[] = [
   { key: "rocker-workshop", name: "Workshop rocker", kind: "kinetic-rocker", zone: "workshop", profile: { buttons: 2 } },
   { key: "dl-workshop-1", name: "Workshop downlight 1", kind: "mesh-luminaire", zone: "workshop" },
   { key: "dl-workshop-2", name: "Workshop downlight 2", kind: "mesh-luminaire", zone: "workshop" },
-  { key: "climate-workshop", name: "Workshop climate sensor", kind: "climate-sensor", zone: "workshop" },
+  { key: "climate-workshop", name: "Workshop climate sensor", kind: "climate-sensor", zone: "workshop", profile: solar() },
   { key: "fan-workshop", name: "Workshop fan relay", kind: "relay", zone: "workshop" },
-  { key: "climate-case-a", name: "Textile case A climate sensor", kind: "climate-sensor", zone: "textile" },
-  { key: "climate-case-b", name: "Textile case B climate sensor", kind: "climate-sensor", zone: "textile" },
+  { key: "climate-case-a", name: "Textile case A climate sensor", kind: "climate-sensor", zone: "textile", profile: solar(caseCell) },
+  { key: "climate-case-b", name: "Textile case B climate sensor", kind: "climate-sensor", zone: "textile", profile: solar(caseCell) },
   { key: "driver-textile", name: "Textile display driver", kind: "cc-driver", zone: "textile" },
-  { key: "sensor-path", name: "Front path motion sensor", kind: "solar-motion-light", zone: "path" },
+  { key: "sensor-path", name: "Front path motion sensor", kind: "solar-motion-light", zone: "path", profile: solar({ type: "solar", cellAreaCm2: 5, efficiencyPct: 5, exposure: "near-window", daylightFactorPct: 30, source: `${DEMO_SOURCE}: outdoors under the porch roof, 30 % of the open sky` }) },
   { key: "light-path-1", name: "Path light 1", kind: "mesh-luminaire", zone: "path" },
   { key: "light-path-2", name: "Path light 2", kind: "mesh-luminaire", zone: "path" },
-  { key: "contact-back", name: "Back door contact", kind: "solar-contact", zone: "back" },
+  { key: "contact-back", name: "Back door contact", kind: "solar-contact", zone: "back", profile: solar({ type: "solar", cellAreaCm2: 5, efficiencyPct: 5, exposure: "near-window", daylightFactorPct: 2, source: `${DEMO_SOURCE}: on the glazed back door` }) },
   { key: "fire-input", name: "Fire-alarm input module", kind: "fire-alarm-input", zone: "escape" },
   { key: "dl-escape-1", name: "Stair downlight", kind: "mesh-luminaire", zone: "escape" },
   { key: "dl-escape-2", name: "Exit passage downlight", kind: "mesh-luminaire", zone: "escape" },

@@ -8,9 +8,19 @@ function trigger<T extends string, P extends z.ZodType>(type: T, params: P) {
 
 const onDevice = z.object({ device: deviceRef });
 const onButton = z.object({ device: deviceRef, button });
-const lux = z.object({ device: deviceRef, lux: reading("lx"), hysteresisLux: hysteresis("lx", 0) });
-const celsius = z.object({ device: deviceRef, celsius: reading("°C"), hysteresis: hysteresis("°C", 0.5) });
-const humidity = z.object({ device: deviceRef, percent: reading("%RH"), hysteresis: hysteresis("%RH", 2) });
+/**
+ * How often the rule asks the sensor to report, in seconds. The engine ignores
+ * it (it reacts to whatever arrives); the Energy budget charges the device for it.
+ */
+const reportSeconds = z
+  .number({ error: "Enter how often the sensor reports, in whole seconds (1 to 86400)." })
+  .int("Enter how often the sensor reports, in whole seconds (1 to 86400).")
+  .min(1, "Enter how often the sensor reports, in whole seconds (1 to 86400).")
+  .max(86_400, "Enter how often the sensor reports, in whole seconds (1 to 86400).")
+  .optional();
+const lux = z.object({ device: deviceRef, lux: reading("lx"), hysteresisLux: hysteresis("lx", 0), reportSeconds });
+const celsius = z.object({ device: deviceRef, celsius: reading("°C"), hysteresis: hysteresis("°C", 0.5), reportSeconds });
+const humidity = z.object({ device: deviceRef, percent: reading("%RH"), hysteresis: hysteresis("%RH", 2), reportSeconds });
 
 export const triggerNodeSchema = z.discriminatedUnion(
   "type",

@@ -69,7 +69,7 @@ describe("compiler", () => {
 
   it("lists what the engine must watch: thresholds, vacancy, left-open and clock triggers", () => {
     const { watches } = buildRuleIndex(compileGraph(demoRuleGraph));
-    expect(watches.thresholds.map((w) => `${w.measure} ${w.direction} ${w.threshold}±${w.hysteresis}`)).toEqual(["humidity above 65±3", "lux above 800±100", "lux below 400±100", "temperature above 28±1", "temperature below 26±1"]);
+    expect(watches.thresholds.map((w) => `${w.measure} ${w.direction} ${w.threshold}±${w.hysteresis}`)).toEqual(["humidity above 60±3", "humidity above 65±3", "lux above 800±100", "lux below 400±100", "temperature above 28±1", "temperature below 26±1"]);
     expect(watches.vacancy).toEqual([{ key: "vacancy|larch-lane-dev-sensor-path|3", device: d("sensor-path"), minutes: 3 }]);
     expect(watches.leftOpen.map((w) => w.minutes)).toEqual([10]);
     expect(watches.schedules.map((w) => w.key)).toEqual(["time-of-day|fixed|09:00", "time-of-day|fixed|17:30"]);
