@@ -28,6 +28,12 @@ const envSchema = z.object({
   UPLOAD_DIR: z.string().min(1).default("data/uploads"),
   /** "1" turns on developer-only pages such as /dev/mail; anything else leaves them 404. */
   JOULEPATH_DEV_TOOLS: z.enum(["0", "1"]).default("0"),
+  /** Notices: the local push service (`workers/push-service.ts`); set, browsers may take demo subscriptions from it. */
+  PUSH_SERVICE_URL: z.url().optional(),
+  /** Notices: the VAPID key pair (RFC 8292, base64url); unset, one is generated once and kept in app_settings. */
+  VAPID_PUBLIC_KEY: z.string().regex(/^B[A-Za-z0-9_-]{86}$/, "must be a 65-octet P-256 public key in base64url").optional(),
+  VAPID_PRIVATE_KEY: z.string().regex(/^[A-Za-z0-9_-]{43}$/, "must be a 32-octet P-256 private key in base64url").optional(),
+  VAPID_SUBJECT: z.string().regex(/^(mailto:|https:)/, "must be a mailto: or https: URI (RFC 8292 §2.1)").default("mailto:notices@joulepath.invalid"),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { ChangePasswordForm } from "@/components/account/change-password-form";
 import { SignOutButton } from "@/components/auth/sign-out-button";
 import { ConsoleHeader } from "@/components/console/console-header";
+import { NoticeSettings } from "@/components/notices/notice-settings";
 import { listSitesForUser } from "@/db/queries/members";
 import { requireUser } from "@/lib/auth/current";
 import { ROLE_LABEL } from "@/lib/auth/roles";
@@ -31,6 +32,7 @@ export default async function AccountPage() {
             </ul>
           ) : null}
         </section>
+        <NoticeSettings sites={sites} />
         <section aria-labelledby="pw-title" className="rounded-2xl border border-line bg-paper p-6">
           <h2 id="pw-title" className="text-lg font-bold">
             Change password

@@ -1,0 +1,5 @@
+import { LoadingPanel } from "@/components/ui/loading-panel";
+
+export default function Loading() {
+  return <LoadingPanel label="Loading pushed messages…" />;
+}
