@@ -14,4 +14,5 @@ await runApp({
   build: false,
   // Ports apart from the demo's, so the two can run side by side.
   mailSink: { smtpPort: 2625, httpPort: 2626 },
+  pushServicePort: 2630,
 });

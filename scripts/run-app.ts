@@ -15,6 +15,8 @@ export type RunOptions = {
   build: boolean;
   /** Ports of the local mail sink (SMTP and its JSON API). */
   mailSink: { smtpPort: number; httpPort: number };
+  /** Port of the local push service (`workers/push-service.ts`); default 2530. */
+  pushServicePort?: number;
   /** Extra environment for the server and workers. */
   env?: Record<string, string>;
   onReady?: (url: string) => void;
@@ -56,7 +58,7 @@ async function waitForHealth(url: string, timeoutMs: number): Promise<void> {
 async function assertPortFree(port: number, what: string): Promise<void> {
   await new Promise<void>((resolve, reject) => {
     const probe = createServer();
-    probe.once("error", () => reject(new Error(`Port ${port} (${what}) is already in use. Stop the other process, or choose another port (PORT, MAIL_SINK_SMTP_PORT, MAIL_SINK_HTTP_PORT).`)));
+    probe.once("error", () => reject(new Error(`Port ${port} (${what}) is already in use. Stop the other process, or choose another port (PORT, MAIL_SINK_SMTP_PORT, MAIL_SINK_HTTP_PORT, PUSH_SERVICE_PORT).`)));
     probe.listen(port, () => probe.close(() => resolve()));
   });
 }
@@ -66,6 +68,7 @@ export async function runApp(options: RunOptions): Promise<void> {
   process.on("SIGTERM", () => stopAll(0));
   const url = `http://localhost:${options.port}`;
   const { smtpPort, httpPort } = options.mailSink;
+  const pushPort = options.pushServicePort ?? 2530;
   const env: NodeJS.ProcessEnv = {
     ...process.env,
     APP_URL: url,
@@ -73,6 +76,8 @@ export async function runApp(options: RunOptions): Promise<void> {
     MAIL_SINK_API_URL: `http://127.0.0.1:${httpPort}`,
     MAIL_SINK_SMTP_PORT: String(smtpPort),
     MAIL_SINK_HTTP_PORT: String(httpPort),
+    PUSH_SERVICE_PORT: String(pushPort),
+    PUSH_SERVICE_URL: `http://127.0.0.1:${pushPort}`,
     JOULEPATH_DEV_TOOLS: "1",
     ...options.env,
     DATABASE_URL: options.databaseUrl,
@@ -83,6 +88,7 @@ export async function runApp(options: RunOptions): Promise<void> {
     await assertPortFree(options.port, "console");
     await assertPortFree(smtpPort, "mail sink SMTP");
     await assertPortFree(httpPort, "mail sink API");
+    await assertPortFree(pushPort, "push service");
   } catch (err) {
     console.error(err instanceof Error ? err.message : err);
     process.exit(1);
@@ -103,6 +109,9 @@ export async function runApp(options: RunOptions): Promise<void> {
 
   start("mail-sink", "node_modules/.bin/tsx", ["workers/mail-sink.ts"], env);
   start("engine-worker", "node_modules/.bin/tsx", ["workers/engine-worker.ts"], env);
+  start("push-service", "node_modules/.bin/tsx", ["workers/push-service.ts"], env);
+  start("notice-worker", "node_modules/.bin/tsx", ["workers/notice-worker.ts"], env);
+  start("replay-worker", "node_modules/.bin/tsx", ["workers/replay-worker.ts"], env);
   start("app", "node_modules/.bin/next", ["start", "-p", String(options.port)], { ...env, NODE_ENV: "production" });
   await waitForHealth(url, 60_000);
   options.onReady?.(url);

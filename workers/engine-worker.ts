@@ -19,14 +19,12 @@
  *
  * DATABASE_URL (and DATABASE_AUTH_TOKEN) come from lib/env.ts.
  */
-import { randomUUID } from "node:crypto";
-import { register } from "node:module";
-import os from "node:os";
-import { pathToFileURL } from "node:url";
 import type * as LiveQueries from "@/db/queries/live";
 import type { Database } from "@/db/client";
-import { env } from "@/lib/env";
+import { allowServerOnly, isEntryModule, makeOwnerId, messageOf, runWorkerMain, workerLog } from "./entry";
 import { createOutboxReporter, type WorkerLog } from "./outbox";
+
+export { allowServerOnly, makeOwnerId };
 
 export type { WorkerLog } from "./outbox";
 
@@ -38,10 +36,7 @@ const LEASE_MARGIN_MS = 2_000;
 const RETRY_FIRST_MS = 1_000;
 const RETRY_MAX_MS = 5 * 60_000;
 
-const consoleLog: WorkerLog = {
-  info: (message) => console.log(`engine worker: ${message}`),
-  error: (message) => console.error(`engine worker: ${message}`),
-};
+const consoleLog: WorkerLog = workerLog("engine worker");
 
 // db/queries/live.ts reaches the database through db/index.ts, which imports
 // "server-only". Loaded on first use, so that the entry below can first let a
@@ -168,10 +163,6 @@ export async function runEngineWorker({
   }
 }
 
-export function makeOwnerId(): string {
-  return `${os.hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`;
-}
-
 function sleep(ms: number, signal?: AbortSignal): Promise<void> {
   return new Promise((resolve) => {
     if (signal?.aborted) return resolve();
@@ -185,65 +176,11 @@ function sleep(ms: number, signal?: AbortSignal): Promise<void> {
   });
 }
 
-function messageOf(error: unknown, withStack = false): string {
-  if (!(error instanceof Error)) return String(error);
-  // Domain errors (a conflict, a deleted site) are expected enough that their message says it all.
-  if (!withStack || error.name === "AppError" || !error.stack) return error.message;
-  return error.stack;
-}
-
-/**
- * This is a Node process, never a browser bundle, so db/index.ts's "server-only"
- * guard does not apply: resolve that one package as a React server would (to its
- * empty module). The same as `node --conditions=react-server`, limited to it.
- * Call it before anything imports db/index.ts (the benchmarks use it too).
- */
-export function allowServerOnly(): void {
-  const hook = `export async function resolve(specifier, context, next) {
-  return next(specifier, specifier === "server-only" ? { ...context, conditions: [...context.conditions, "react-server"] } : context);
-}`;
-  register(`data:text/javascript,${encodeURIComponent(hook)}`);
-}
-
-/** Names the database without printing credentials that a remote URL may carry. */
-function databaseLabel(url: string): string {
-  if (url.startsWith("file:") || url.startsWith(":memory:")) return url.split("?")[0];
-  try {
-    return new URL(url).host;
-  } catch {
-    return "(unparsable URL)";
-  }
-}
-
-async function main() {
-  // Parse the environment first, so a bad DATABASE_URL stops the worker with its name.
-  const { DATABASE_URL } = env();
-  allowServerOnly();
-  const owner = makeOwnerId();
-  const controller = new AbortController();
-  let signals = 0;
-  const stop = (signal: NodeJS.Signals) => {
-    signals++;
-    if (signals > 1) {
-      consoleLog.error(`${signal} again: stopping now.`);
-      process.exit(1);
-    }
-    consoleLog.info(`${signal}: stopping after the site in hand.`);
-    controller.abort();
-  };
-  process.on("SIGINT", stop);
-  process.on("SIGTERM", stop);
-
-  consoleLog.info(`${owner} on ${databaseLabel(DATABASE_URL)}: firing due timers every ${DEFAULT_INTERVAL_MS} ms, lease ${DEFAULT_LEASE_MS / 1000} s.`);
-  await runEngineWorker({ owner, signal: controller.signal });
-  (await database()).$client.close();
-  consoleLog.info("stopped.");
-}
-
-const isDirectRun = process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href;
-if (isDirectRun) {
-  main().catch((error: unknown) => {
-    consoleLog.error(messageOf(error, true));
-    process.exit(1);
+if (isEntryModule(import.meta.url)) {
+  runWorkerMain({
+    log: consoleLog,
+    inHand: "the site in hand",
+    describe: (owner, database) => `${owner} on ${database}: firing due timers every ${DEFAULT_INTERVAL_MS} ms, lease ${DEFAULT_LEASE_MS / 1000} s.`,
+    run: (owner, signal) => runEngineWorker({ owner, signal }),
   });
 }

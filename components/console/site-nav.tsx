@@ -10,17 +10,19 @@ export function SiteNav({ siteId, sections }: { siteId: string; sections: NavSec
   const pathname = usePathname();
   const base = `/sites/${siteId}`;
   return (
-    <nav aria-label="Site sections" className="ml-auto">
-      <ul className="flex gap-1">
+    // One row that scrolls sideways on a narrow screen rather than widening the page.
+    <nav aria-label="Site sections" className="-mb-px overflow-x-auto">
+      <ul className="flex w-max gap-1 px-2">
         {sections.map((s) => {
           const href = `${base}${s.href}`;
-          const isCurrent = pathname === href;
+          // A section stays marked on its sub-pages (a device's energy view, say); the overview only on itself.
+          const isCurrent = pathname === href || (s.href !== "" && pathname.startsWith(`${href}/`));
           return (
             <li key={s.label}>
               <Link
                 href={href}
                 aria-current={isCurrent ? "page" : undefined}
-                className={`rounded-md px-3 py-1.5 text-sm font-semibold ${isCurrent ? "bg-ink text-fog" : "text-slate hover:bg-fog hover:text-ink"}`}
+                className={`block whitespace-nowrap rounded-md px-3 py-1.5 text-sm font-semibold ${isCurrent ? "bg-ink text-fog" : "text-slate hover:bg-fog hover:text-ink"}`}
               >
                 {s.label}
               </Link>

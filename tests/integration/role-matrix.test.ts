@@ -21,6 +21,42 @@ import * as exportRoute from "@/app/api/sites/[siteId]/devices/export/route";
 import * as siteRoute from "@/app/api/sites/[siteId]/route";
 import * as keysRoute from "@/app/api/sites/[siteId]/keys/route";
 import * as sceneRoute from "@/app/api/sites/[siteId]/scenes/[sceneId]/route";
+import * as pushConfigRoute from "@/app/api/push/config/route";
+import * as pushSubscriptionsRoute from "@/app/api/push/subscriptions/route";
+import * as pushDemoRoute from "@/app/api/push/demo/route";
+import * as pushDemoReceiveRoute from "@/app/api/push/demo/receive/route";
+import * as inboxRoute from "@/app/api/notices/inbox/route";
+import * as inboxUnreadRoute from "@/app/api/notices/inbox/unread/route";
+import * as inboxReadRoute from "@/app/api/notices/inbox/read/route";
+import * as noticePrefsRoute from "@/app/api/notices/sites/[siteId]/preferences/route";
+import * as energyRoute from "@/app/api/sites/[siteId]/energy/route";
+import * as deviceEnergyRoute from "@/app/api/sites/[siteId]/energy/[deviceId]/route";
+import * as benchRoute from "@/app/api/sites/[siteId]/bench/route";
+import * as benchResetRoute from "@/app/api/sites/[siteId]/bench/reset/route";
+import * as benchActionsRoute from "@/app/api/sites/[siteId]/bench/actions/route";
+import * as benchClockRoute from "@/app/api/sites/[siteId]/bench/clock/route";
+import * as benchDateRoute from "@/app/api/sites/[siteId]/bench/date/route";
+import * as benchScenariosRoute from "@/app/api/sites/[siteId]/bench/scenarios/route";
+import * as benchScenarioRoute from "@/app/api/sites/[siteId]/bench/scenarios/[scenarioId]/route";
+import * as benchPlayRoute from "@/app/api/sites/[siteId]/bench/scenarios/[scenarioId]/play/route";
+import * as rulesRoute from "@/app/api/sites/[siteId]/rules/route";
+import * as rulesDraftRoute from "@/app/api/sites/[siteId]/rules/draft/route";
+import * as rulesActivateRoute from "@/app/api/sites/[siteId]/rules/activate/route";
+import * as rulesVersionsRoute from "@/app/api/sites/[siteId]/rules/versions/route";
+import * as rulesRollbackRoute from "@/app/api/sites/[siteId]/rules/versions/[versionId]/activate/route";
+import * as rulesDiffRoute from "@/app/api/sites/[siteId]/rules/diff/route";
+import { getRuleSet } from "@/db/queries/rule-sets";
+import * as eventsRoute from "@/app/api/sites/[siteId]/events/route";
+import * as eventRoute from "@/app/api/sites/[siteId]/events/[seq]/route";
+import * as eventsExportRoute from "@/app/api/sites/[siteId]/events/export/route";
+import * as eventsImportRoute from "@/app/api/sites/[siteId]/events/import/route";
+import * as replaysRoute from "@/app/api/sites/[siteId]/replays/route";
+import * as replayRoute from "@/app/api/sites/[siteId]/replays/[jobId]/route";
+import * as replayCancelRoute from "@/app/api/sites/[siteId]/replays/[jobId]/cancel/route";
+import { insertImportedEvents } from "@/db/queries/events";
+import { events as eventLog } from "@/db/schema";
+import { eq as eqOf } from "drizzle-orm";
+import { createReplayJob } from "@/db/queries/replays";
 import { getDb } from "@/db";
 import { createInvite } from "@/db/queries/invites";
 import { upsertMembership } from "@/db/queries/members";
@@ -63,6 +99,69 @@ function multipart(cookie: string | null, name: string): Request {
 }
 
 const cases: Case[] = [
+  // Notices: per-person endpoints answer every signed-in person about themselves; preferences need site membership.
+  { name: "GET /api/push/config", call: (c) => h(pushConfigRoute.GET)(req("GET", "/x", { cookie: c }), params({})), expect: { ...everyone, outsider: 200 } },
+  { name: "GET /api/push/subscriptions", call: (c) => h(pushSubscriptionsRoute.GET)(req("GET", "/x", { cookie: c }), params({})), expect: { ...everyone, outsider: 200 } },
+  {
+    name: "POST /api/push/subscriptions",
+    call: (c) => h(pushSubscriptionsRoute.POST)(req("POST", "/x", { cookie: c, body: { subscription: { endpoint: `https://push.example.invalid/${uniq()}`, keys: { p256dh: "BCVxsr7N_eNgVRqvHtD0zTZsEc6-VV-JvLexhqUzORcxaOzi6-AYWXvTBHm4bjyPjs7Vd8pZGH6SRpkNtoIAiw4", auth: "BTBZMqHH6r4Tts7J_aSIgg" } } } }), params({})),
+    expect: { integrator: 201, manager: 201, occupant: 201, outsider: 201, signedOut: 401 },
+  },
+  { name: "DELETE /api/push/subscriptions (not theirs)", call: (c) => h(pushSubscriptionsRoute.DELETE)(req("DELETE", "/x", { cookie: c, body: { endpoint: "https://push.example.invalid/nobody" } }), params({})), expect: { integrator: 404, manager: 404, occupant: 404, outsider: 404, signedOut: 401 } },
+  { name: "POST /api/push/demo (no local push service here)", call: (c) => h(pushDemoRoute.POST)(req("POST", "/x", { cookie: c }), params({})), expect: { integrator: 404, manager: 404, occupant: 404, outsider: 404, signedOut: 401 } },
+  { name: "POST /api/push/demo/receive (no demo subscription)", call: (c) => h(pushDemoReceiveRoute.POST)(req("POST", "/x", { cookie: c, body: { endpoint: "http://127.0.0.1:1/push/x" } }), params({})), expect: { integrator: 404, manager: 404, occupant: 404, outsider: 404, signedOut: 401 } },
+  { name: "GET /api/notices/inbox", call: (c) => h(inboxRoute.GET)(req("GET", "/api/notices/inbox", { cookie: c }), params({})), expect: { ...everyone, outsider: 200 } },
+  { name: "GET /api/notices/inbox/unread", call: (c) => h(inboxUnreadRoute.GET)(req("GET", "/x", { cookie: c }), params({})), expect: { ...everyone, outsider: 200 } },
+  { name: "POST /api/notices/inbox/read", call: (c) => h(inboxReadRoute.POST)(req("POST", "/x", { cookie: c, body: { all: true } }), params({})), expect: { ...everyone, outsider: 200 } },
+  { name: "GET notice preferences", call: (c) => h(noticePrefsRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
+  { name: "PUT notice preferences", call: (c) => h(noticePrefsRoute.PUT)(req("PUT", "/x", { cookie: c, body: { kinds: null, channels: ["push", "in-app"], quietFrom: null, quietTo: null } }), site()), expect: everyone },
+  // Event log and Replay: integrators and managers (replay.use).
+  { name: "GET events", call: (c) => h(eventsRoute.GET)(req("GET", "/x?limit=5", { cookie: c }), site()), expect: managers },
+  {
+    name: "GET events/{seq}",
+    call: async (c) => {
+      await insertImportedEvents({ siteId: DEMO_SITE_ID, batch: [{ id: "matrix-ev", siteId: DEMO_SITE_ID, at: 1_700_000_000_000, device: dev, kind: "press", value: 1 }], receivedAt: 1 });
+      const [row] = await getDb().select({ seq: eventLog.seq }).from(eventLog).where(eqOf(eventLog.eventId, "matrix-ev"));
+      return h(eventRoute.GET)(req("GET", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, seq: String(row.seq) }));
+    },
+    expect: managers,
+  },
+  { name: "GET events/export", call: (c) => h(eventsExportRoute.GET)(req("GET", "/x?format=csv", { cookie: c }), site()), expect: managers },
+  {
+    name: "POST events/import (check)",
+    call: (c) => h(eventsImportRoute.POST)(new Request("http://localhost:3000/x?format=ndjson&mode=check", { method: "POST", headers: { origin: "http://localhost:3000", ...(c ? { cookie: c } : {}) }, body: "{}\n" }), site()),
+    expect: managers,
+  },
+  { name: "GET replays", call: (c) => h(replaysRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: managers },
+  { name: "POST replays", call: (c) => h(replaysRoute.POST)(req("POST", "/x", { cookie: c, body: { from: 0, to: 1000, ruleSets: [{ kind: "active" }] } }), site()), expect: created(managers) },
+  {
+    name: "GET replays/{jobId}",
+    call: async (c) => {
+      const job = await createReplayJob({ siteId: DEMO_SITE_ID, userId: null, request: { from: 0, to: 1000, ruleSets: [{ kind: "active" }] } });
+      return h(replayRoute.GET)(req("GET", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, jobId: job.id }));
+    },
+    expect: managers,
+  },
+  {
+    name: "POST replays/{jobId}/cancel",
+    call: async (c) => {
+      const job = await createReplayJob({ siteId: DEMO_SITE_ID, userId: null, request: { from: 0, to: 1000, ruleSets: [{ kind: "active" }] } });
+      return h(replayCancelRoute.POST)(req("POST", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, jobId: job.id }));
+    },
+    expect: managers,
+  },
+  { name: "GET bench", call: (c) => h(benchRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: managers },
+  { name: "PATCH bench", call: (c) => h(benchRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { source: "active" } }), site()), expect: managers },
+  { name: "POST bench/reset", call: (c) => h(benchResetRoute.POST)(req("POST", "/x", { cookie: c, body: {} }), site()), expect: managers },
+  { name: "POST bench/actions", call: (c) => h(benchActionsRoute.POST)(req("POST", "/x", { cookie: c, body: { action: { type: "walk-past", device: `${DEMO_SITE_ID}-dev-sensor-path` } } }), site()), expect: managers },
+  { name: "POST bench/clock", call: (c) => h(benchClockRoute.POST)(req("POST", "/x", { cookie: c, body: { minutes: 5 } }), site()), expect: managers },
+  { name: "POST bench/date", call: (c) => h(benchDateRoute.POST)(req("POST", "/x", { cookie: c, body: { date: "2025-01-15", time: "18:30" } }), site()), expect: managers },
+  { name: "GET bench/scenarios", call: (c) => h(benchScenariosRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: managers },
+  { name: "POST bench/scenarios", call: (c) => h(benchScenariosRoute.POST)(req("POST", "/x", { cookie: c, body: { name: `B ${uniq()}`, steps: [{ type: "skip", minutes: 1 }] } }), site()), expect: created(managers) },
+  { name: "GET bench/scenario", call: (c) => h(benchScenarioRoute.GET)(req("GET", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, scenarioId: `${DEMO_SITE_ID}-bench-fire-drill` })), expect: managers },
+  { name: "PUT bench/scenario", call: (c) => h(benchScenarioRoute.PUT)(req("PUT", "/x", { cookie: c, body: { name: "fire drill", steps: [{ type: "skip", minutes: 1 }] } }), params({ siteId: DEMO_SITE_ID, scenarioId: `${DEMO_SITE_ID}-bench-fire-drill` })), expect: managers },
+  { name: "DELETE bench/scenario (none such)", call: (c) => h(benchScenarioRoute.DELETE)(req("DELETE", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, scenarioId: "no-such-scenario" })), expect: { ...managers, integrator: 404, manager: 404 } },
+  { name: "POST bench/scenario/play", call: (c) => h(benchPlayRoute.POST)(req("POST", "/x", { cookie: c, body: {} }), params({ siteId: DEMO_SITE_ID, scenarioId: `${DEMO_SITE_ID}-bench-evening-visitor` })), expect: managers },
   { name: "GET keys", call: (c) => h(keysRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: integratorOnly },
   { name: "POST keys", call: (c) => h(keysRoute.POST)(req("POST", "/x", { cookie: c, body: { name: `K ${uniq()}` } }), site()), expect: created(integratorOnly) },
   { name: "GET site", call: (c) => h(siteRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
@@ -84,6 +183,21 @@ const cases: Case[] = [
   { name: "GET scenes", call: (c) => h(scenesRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: { ...read, occupant: 200 } },
   { name: "POST scenes", call: (c) => h(scenesRoute.POST)(req("POST", "/x", { cookie: c, body: { number: 100 + Math.floor(Math.random() * 60000), name: `S ${uniq()}`, fadeMs: 0, levels: [] } }), site()), expect: created(managers) },
   { name: "PUT scene", call: (c) => h(sceneRoute.PUT)(req("PUT", "/x", { cookie: c, body: { number: 4, name: "Workshop bright", fadeMs: 1000, isOccupantRecallable: false, levels: [] } }), params({ siteId: DEMO_SITE_ID, sceneId })), expect: managers },
+  { name: "GET rules", call: (c) => h(rulesRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: managers },
+  {
+    name: "PUT rules/draft",
+    call: async (c) => {
+      const r = await getRuleSet({ siteId: DEMO_SITE_ID });
+      return h(rulesDraftRoute.PUT)(req("PUT", "/x", { cookie: c, body: { graph: r.draftGraph, revision: r.draftRevision } }), site());
+    },
+    expect: managers,
+  },
+  { name: "POST rules/activate", call: async (c) => h(rulesActivateRoute.POST)(req("POST", "/x", { cookie: c, body: { revision: (await getRuleSet({ siteId: DEMO_SITE_ID })).draftRevision } }), site()), expect: managers },
+  { name: "GET rules/versions", call: (c) => h(rulesVersionsRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: managers },
+  { name: "POST rules/versions/{id}/activate", call: (c) => h(rulesRollbackRoute.POST)(req("POST", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, versionId: `${DEMO_SITE_ID}-rules-v1` })), expect: managers },
+  { name: "GET rules/diff", call: (c) => h(rulesDiffRoute.GET)(req("GET", "/x?from=active&to=draft", { cookie: c }), site()), expect: managers },
+  { name: "GET energy", call: (c) => h(energyRoute.GET)(req("GET", "/x?source=draft", { cookie: c }), site()), expect: managers },
+  { name: "GET device energy", call: (c) => h(deviceEnergyRoute.GET)(req("GET", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, deviceId: `${DEMO_SITE_ID}-dev-climate-case-a` })), expect: managers },
   { name: "GET /api/sites", call: (c) => h(sitesRoute.GET)(req("GET", "/api/sites", { cookie: c }), params({})), expect: { integrator: 200, manager: 200, occupant: 200, outsider: 200, signedOut: 401 } },
   {
     name: "POST /api/sites",

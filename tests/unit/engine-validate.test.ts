@@ -91,10 +91,10 @@ describe("validation", () => {
     expect(messages([press, { id: "g", kind: "gate", type: "zone-occupied", params: { zone: z("shop") } }, note], chainEdges("t", "g", "a"))).toEqual(["warning g: Shop floor has no motion sensor, so it always counts as vacant."]);
   });
 
-  it("flags thresholds outside the sensor's range (lux 0–100000, °C −40–85, %RH 0–100)", () => {
+  it("flags thresholds outside the sensor's range (lux 0–200000, °C −40–85, %RH 0–100)", () => {
     // Ranges: common practice for indoor sensors, no source.
     const t = (type: string, params: Record<string, unknown>) => messages([{ id: "t", kind: "trigger", type, params } as N, note], chainEdges("t", "a"));
-    expect(t("light-level-above", { device: d("lux-window"), lux: 150_000 })).toEqual(["error t: 150000 lx is outside what the sensor measures (0 to 100000 lx), so this never trips."]);
+    expect(t("light-level-above", { device: d("lux-window"), lux: 250_000 })).toEqual(["error t: 250000 lx is outside what the sensor measures (0 to 200000 lx), so this never trips."]);
     expect(t("temperature-above", { device: d("climate-workshop"), celsius: 90 })).toEqual(["error t: 90 °C is outside what the sensor measures (-40 to 85 °C), so this never trips."]);
     expect(t("humidity-below", { device: d("climate-workshop"), percent: -5 })).toEqual(["error t: -5 %RH is outside what the sensor measures (0 to 100 %RH), so this never trips."]);
     expect(t("humidity-below", { device: d("climate-workshop"), percent: 99, hysteresis: 5 })).toEqual([
