@@ -33,7 +33,7 @@ export function VersionsPanel({ siteId, canActivate }: { siteId: string; canActi
               <ul className="mt-1 text-xs text-slate" aria-label={`Activations of version ${v.number}`}>
                 {v.activations.map((a, i) => (
                   <li key={i}>
-                    Activated {when(a.at)} by {a.by ?? "someone no longer here"}
+                    Activated {when(a.at)} by {a.by ?? "the demo seed or a removed account"}
                   </li>
                 ))}
               </ul>

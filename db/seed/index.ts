@@ -8,7 +8,7 @@ import type { Database } from "../client";
 import { removeUploadFile, saveUploadFile } from "../files";
 import { compileGraph } from "../../lib/rules/compile";
 import { demoRuleGraph } from "../../lib/rules/demo-graph";
-import { devices, floors, memberships, ruleSets, ruleSetVersions, scenes, sites, uploads, users, zones } from "../schema";
+import { devices, floors, memberships, ruleSetActivations, ruleSets, ruleSetVersions, scenes, sites, uploads, users, zones } from "../schema";
 import { seedBenchScenarios } from "./bench-scenarios";
 import { demoDevices, demoFloors, demoScenes, demoSite, demoZones } from "./demo-site";
 import { DEMO_PASSWORD, demoUsers } from "./demo-users";
@@ -59,6 +59,8 @@ export async function seedDemo(db: Database, options: { withUsers?: boolean } = 
         const versionId = `${demoSite.id}-rules-v1`;
         await tx.insert(ruleSetVersions).values({ id: versionId, siteId: demoSite.id, number: 1, graph: demoRuleGraph, rules: compileGraph(demoRuleGraph) }).onConflictDoNothing();
         await tx.update(ruleSets).set({ activeVersionId: versionId }).where(eq(ruleSets.siteId, demoSite.id));
+        // Its activation, so the version history says when it went live (by the seed: no person).
+        await tx.insert(ruleSetActivations).values({ siteId: demoSite.id, versionId, activatedBy: null });
       }
       await seedBenchScenarios(tx);
       let u: { id: string }[] = [];

@@ -1,7 +1,7 @@
 import { count, eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { getDb } from "@/db";
-import { devices, sites, zones } from "@/db/schema";
+import { devices, ruleSetActivations, sites, zones } from "@/db/schema";
 import { DEMO_SITE_ID, demoDevices, demoZones } from "@/db/seed/demo-site";
 import { seedDemoSite } from "./helpers";
 
@@ -18,6 +18,9 @@ describe("demo seed on a real SQLite file", () => {
       db.select({ n: count() }).from(devices).where(eq(devices.siteId, DEMO_SITE_ID)),
     ]);
     expect([s.n, z.n, d.n]).toEqual([1, demoZones.length, demoDevices.length]);
+    // Version 1 went live once, by the seed: one activation row, however often the seed runs.
+    const activations = await db.select().from(ruleSetActivations).where(eq(ruleSetActivations.siteId, DEMO_SITE_ID));
+    expect(activations.map((a) => [a.versionId, a.activatedBy])).toEqual([[`${DEMO_SITE_ID}-rules-v1`, null]]);
   });
 
   it("keeps a user's edit when seeding again", async () => {
