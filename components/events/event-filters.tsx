@@ -1,5 +1,6 @@
 "use client";
 
+import { NamedOptions } from "@/components/ui/named-options";
 import { useId } from "react";
 import { DEVICE_KIND_INFO } from "@/lib/catalogue/device-kinds";
 import type { SiteContext } from "./types";
@@ -19,25 +20,13 @@ export function EventFilters({ ctx, value, onChange, error }: { ctx: SiteContext
       <label className="text-sm font-semibold" htmlFor={`${id}-device`}>
         Device
         <select id={`${id}-device`} className={field} value={value.device} onChange={set("device")}>
-          <option value="">All devices</option>
-          {ctx.devices
-            .filter((d) => DEVICE_KIND_INFO[d.kind].reports.length > 0)
-            .map((d) => (
-              <option key={d.id} value={d.id}>
-                {d.name}
-              </option>
-            ))}
+          <NamedOptions all="All devices" items={ctx.devices.filter((d) => DEVICE_KIND_INFO[d.kind].reports.length > 0)} />
         </select>
       </label>
       <label className="text-sm font-semibold" htmlFor={`${id}-zone`}>
         Zone
         <select id={`${id}-zone`} className={field} value={value.zone} onChange={set("zone")}>
-          <option value="">All zones</option>
-          {ctx.zones.map((z) => (
-            <option key={z.id} value={z.id}>
-              {z.name}
-            </option>
-          ))}
+          <NamedOptions all="All zones" items={ctx.zones} />
         </select>
       </label>
       <label className="text-sm font-semibold" htmlFor={`${id}-kind`}>

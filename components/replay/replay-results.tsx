@@ -1,5 +1,6 @@
 "use client";
 
+import { NamedOptions } from "@/components/ui/named-options";
 import { useId, useMemo, useState } from "react";
 import { TraceView } from "@/components/events/trace-view";
 import { deviceLabel, type SiteContext } from "@/components/events/types";
@@ -69,23 +70,13 @@ export function ReplayResults({ ctx, result }: { ctx: SiteContext; result: Repla
         <label className="text-sm font-semibold" htmlFor={`${id}-dev`}>
           Device
           <select id={`${id}-dev`} className={field} value={device} onChange={(e) => (setDevice(e.target.value), setZone(""))}>
-            <option value="">All devices</option>
-            {ctx.devices.map((d) => (
-              <option key={d.id} value={d.id}>
-                {d.name}
-              </option>
-            ))}
+            <NamedOptions all="All devices" items={ctx.devices} />
           </select>
         </label>
         <label className="text-sm font-semibold" htmlFor={`${id}-zone`}>
           Zone
           <select id={`${id}-zone`} className={field} value={zone} onChange={(e) => (setZone(e.target.value), setDevice(""))}>
-            <option value="">All zones</option>
-            {ctx.zones.map((z) => (
-              <option key={z.id} value={z.id}>
-                {z.name}
-              </option>
-            ))}
+            <NamedOptions all="All zones" items={ctx.zones} />
           </select>
         </label>
       </fieldset>
