@@ -8,6 +8,7 @@ import { randomUUID } from "node:crypto";
 import { register } from "node:module";
 import os from "node:os";
 import { pathToFileURL } from "node:url";
+import { z } from "zod";
 import { env } from "@/lib/env";
 import type { WorkerLog } from "./outbox";
 
@@ -92,6 +93,40 @@ export function runWorkerMain({ log, inHand, describe, run }: Options): void {
   };
   main().catch((error: unknown) => {
     log.error(messageOf(error, true));
+    process.exit(1);
+  });
+}
+
+const portSchema = z.coerce.number().int().min(0).max(65_535);
+
+/** A port from the environment, or `fallback` when unset; anything else stops the process with the variable's name. */
+export function portFromEnv(name: string, fallback: number): number {
+  const raw = process.env[name];
+  if (raw === undefined || raw === "") return fallback;
+  const result = portSchema.safeParse(raw);
+  if (!result.success) throw new Error(`${name} must be a port number (0–65535), got "${raw}"`);
+  return result.data;
+}
+
+/**
+ * The entry of a local stand-in service (mail sink, push service): start it, say
+ * where it listens, close it on SIGINT or SIGTERM.
+ */
+export function runServiceMain<S extends { close(): Promise<void> }>(name: string, start: () => Promise<S>, describe: (service: S) => string): void {
+  const main = async () => {
+    const service = await start();
+    console.log(`${name}: ${describe(service)}`);
+    const stop = () => {
+      service.close().then(
+        () => process.exit(0),
+        () => process.exit(1),
+      );
+    };
+    process.once("SIGINT", stop);
+    process.once("SIGTERM", stop);
+  };
+  main().catch((error: unknown) => {
+    console.error(`${name}: ${error instanceof Error ? error.message : String(error)}`);
     process.exit(1);
   });
 }

@@ -12,11 +12,10 @@
 import { randomUUID } from "node:crypto";
 import http from "node:http";
 import type { AddressInfo, Server } from "node:net";
-import { pathToFileURL } from "node:url";
 import { simpleParser } from "mailparser";
 import { SMTPServer, type SMTPServerDataStream, type SMTPServerSession } from "smtp-server";
-import { z } from "zod";
 import type { SinkMessage } from "../lib/mail/sink-client";
+import { isEntryModule, portFromEnv, runServiceMain } from "./entry";
 
 const HOST = "127.0.0.1";
 /** Larger messages are refused with 552; the console's mails are a few kilobytes. */
@@ -183,37 +182,11 @@ function handleApi(req: http.IncomingMessage, res: http.ServerResponse, messages
   return send(404, { error: "Not found" });
 }
 
-const portSchema = z.coerce.number().int().min(0).max(65_535);
 
-function portFromEnv(name: string, fallback: number): number {
-  const raw = process.env[name];
-  if (raw === undefined || raw === "") return fallback;
-  const result = portSchema.safeParse(raw);
-  if (!result.success) throw new Error(`${name} must be a port number (0–65535), got "${raw}"`);
-  return result.data;
-}
-
-async function main() {
-  const sink = await startMailSink({
-    smtpPort: portFromEnv("MAIL_SINK_SMTP_PORT", 2525),
-    httpPort: portFromEnv("MAIL_SINK_HTTP_PORT", 2526),
-  });
-  console.log(`mail sink: SMTP on ${HOST}:${sink.smtpPort}, messages at http://${HOST}:${sink.httpPort}/messages`);
-
-  const stop = () => {
-    sink.close().then(
-      () => process.exit(0),
-      () => process.exit(1),
-    );
-  };
-  process.once("SIGINT", stop);
-  process.once("SIGTERM", stop);
-}
-
-const isDirectRun = process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href;
-if (isDirectRun) {
-  main().catch((error: unknown) => {
-    console.error(`mail sink: ${error instanceof Error ? error.message : String(error)}`);
-    process.exit(1);
-  });
+if (isEntryModule(import.meta.url)) {
+  runServiceMain(
+    "mail sink",
+    () => startMailSink({ smtpPort: portFromEnv("MAIL_SINK_SMTP_PORT", 2525), httpPort: portFromEnv("MAIL_SINK_HTTP_PORT", 2526) }),
+    (sink) => `SMTP on ${HOST}:${sink.smtpPort}, messages at http://${HOST}:${sink.httpPort}/messages`,
+  );
 }

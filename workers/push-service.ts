@@ -27,11 +27,11 @@
 import { randomUUID } from "node:crypto";
 import http from "node:http";
 import type { AddressInfo } from "node:net";
-import { pathToFileURL } from "node:url";
 import { z } from "zod";
 import { toB64u } from "../lib/push/base64url";
 import { decryptWebPush, EceError, generateUaKeys, MAX_PUSH_BODY, parseEceHeader, type UaKeys } from "../lib/push/ece";
 import type { PushServiceMessage, PushServiceSubscription } from "../lib/push/service-client";
+import { isEntryModule, portFromEnv, runServiceMain } from "./entry";
 import { VapidError, verifyVapid } from "../lib/push/vapid";
 
 const HOST = "127.0.0.1";
@@ -280,29 +280,10 @@ async function readJsonBody(req: http.IncomingMessage): Promise<unknown> {
   }
 }
 
-const portSchema = z.coerce.number().int().min(0).max(65_535);
-
-async function main() {
-  const raw = process.env.PUSH_SERVICE_PORT;
-  const parsedPort = raw ? portSchema.safeParse(raw) : null;
-  if (parsedPort && !parsedPort.success) throw new Error(`PUSH_SERVICE_PORT must be a port number (0–65535), got "${raw}"`);
-  const port = parsedPort?.data ?? 2530;
-  const service = await startPushService({ port, publicUrl: process.env.PUSH_SERVICE_URL || undefined });
-  console.log(`push service: ${service.url} (push at /push/{id}, messages at /messages)`);
-  const stop = () => {
-    service.close().then(
-      () => process.exit(0),
-      () => process.exit(1),
-    );
-  };
-  process.once("SIGINT", stop);
-  process.once("SIGTERM", stop);
-}
-
-const isDirectRun = process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href;
-if (isDirectRun) {
-  main().catch((error: unknown) => {
-    console.error(`push service: ${error instanceof Error ? error.message : String(error)}`);
-    process.exit(1);
-  });
+if (isEntryModule(import.meta.url)) {
+  runServiceMain(
+    "push service",
+    () => startPushService({ port: portFromEnv("PUSH_SERVICE_PORT", 2530), publicUrl: process.env.PUSH_SERVICE_URL || undefined }),
+    (service) => `${service.url} (push at /push/{id}, messages at /messages)`,
+  );
 }
