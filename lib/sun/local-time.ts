@@ -44,8 +44,51 @@ export function isValidTimeZone(timeZone: string): boolean {
   }
 }
 
+// Reading the zone's offset through Intl costs microseconds; the offset holds for
+// long stretches, so remember it per zone and 15-minute span of UTC (every real
+// transition of recent decades falls on a quarter hour). A span whose two ends
+// disagree holds a transition: those instants are read exactly. (A cache, bounded.)
+const SPAN_MS = 15 * MINUTE_MS;
+const spanOffsets = new Map<string, Map<number, number | null>>();
+
+function offsetAt(ms: number, timeZone: string): number {
+  const p = exactParts(ms, timeZone);
+  return Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) - (ms - mod(ms, 1000));
+}
+
+function spanOffset(ms: number, timeZone: string): number | null {
+  let zone = spanOffsets.get(timeZone);
+  if (!zone) spanOffsets.set(timeZone, (zone = new Map()));
+  const span = Math.floor(ms / SPAN_MS);
+  let offset = zone.get(span);
+  if (offset === undefined) {
+    const start = offsetAt(span * SPAN_MS, timeZone);
+    offset = start === offsetAt((span + 1) * SPAN_MS - 1, timeZone) && start % MINUTE_MS === 0 ? start : null;
+    if (zone.size >= 20_000) zone.clear();
+    zone.set(span, offset);
+  }
+  return offset;
+}
+
+const WEEKDAY_BY_UTC_DAY: Weekday[] = ["sun", "mon", "tue", "wed", "thu", "fri", "sat"];
+
 /** The wall-clock reading in `timeZone` at instant `ms`. */
 export function localParts(ms: number, timeZone: string): LocalDateTime {
+  const offset = spanOffset(ms, timeZone);
+  if (offset === null) return exactParts(ms, timeZone);
+  const wall = new Date(ms + offset);
+  return {
+    year: wall.getUTCFullYear(),
+    month: wall.getUTCMonth() + 1,
+    day: wall.getUTCDate(),
+    hour: wall.getUTCHours(),
+    minute: wall.getUTCMinutes(),
+    second: wall.getUTCSeconds(),
+    weekday: WEEKDAY_BY_UTC_DAY[wall.getUTCDay()],
+  };
+}
+
+function exactParts(ms: number, timeZone: string): LocalDateTime {
   const out: Record<string, string> = {};
   for (const part of formatterFor(timeZone).formatToParts(ms)) out[part.type] = part.value;
   return {

@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { isValidTimeZone, localParts, localToInstant, minuteOfDay, utcOffsetMinutes } from "@/lib/sun/local-time";
 import { minuteOfSpec, nextOccurrence, parseHhMm } from "@/lib/sun/schedule";
@@ -57,5 +58,32 @@ describe("local time through the IANA database", () => {
   it("tells real zone names from nonsense", () => {
     expect(isValidTimeZone("WET")).toBe(true);
     expect(isValidTimeZone("Nowhere/Special")).toBe(false);
+  });
+});
+
+describe("localParts' offset cache", () => {
+  // The IANA database through the runtime's Intl, read afresh each time: what the cache must always agree with.
+  const intlParts = (ms: number, timeZone: string) => {
+    const out: Record<string, string> = {};
+    const f = new Intl.DateTimeFormat("en-US", { timeZone, hourCycle: "h23", weekday: "short", year: "numeric", month: "numeric", day: "numeric", hour: "numeric", minute: "numeric", second: "numeric" });
+    for (const part of f.formatToParts(ms)) out[part.type] = part.value;
+    return { year: Number(out.year), month: Number(out.month), day: Number(out.day), hour: Number(out.hour), minute: Number(out.minute), second: Number(out.second), weekday: out.weekday.toLowerCase() };
+  };
+  // Zones named by rule, not by place (the project names no real places).
+  const zones = ["WET", "CET", "EET", "EST5EDT", "PST8PDT", "MST", "Etc/GMT+3", "UTC"];
+
+  it("agrees with Intl at random instants 1990–2040", () => {
+    fc.assert(
+      fc.property(fc.integer({ min: Date.UTC(1990, 0, 1), max: Date.UTC(2040, 0, 1) }), fc.constantFrom(...zones), (ms, zone) => {
+        expect(localParts(ms, zone)).toEqual(intlParts(ms, zone));
+      }),
+      { numRuns: 2000 },
+    );
+  });
+
+  it("agrees with Intl second by second across spring-forward and fall-back (WET and EST5EDT, 2024)", () => {
+    for (const [zone, at] of [["WET", Date.UTC(2024, 2, 31, 1)], ["WET", Date.UTC(2024, 9, 27, 1)], ["EST5EDT", Date.UTC(2024, 2, 10, 7)], ["EST5EDT", Date.UTC(2024, 10, 3, 6)]] as const) {
+      for (let ms = at - 120_000; ms <= at + 120_000; ms += 1000) expect(localParts(ms, zone)).toEqual(intlParts(ms, zone));
+    }
   });
 });
