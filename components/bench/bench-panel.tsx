@@ -3,6 +3,7 @@
 import { useEffect, useId, useRef, useState } from "react";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { LoadingPanel } from "@/components/ui/loading-panel";
+import { useShortDevices } from "@/components/energy/short-mark";
 import type { BenchAction, BenchSource, BenchView } from "@/lib/validation/bench";
 import { BenchClock } from "./bench-clock";
 import { BenchPlan } from "./bench-plan";
@@ -41,6 +42,8 @@ export function BenchPanel({ siteId, source }: { siteId: string; source?: BenchS
   const deliverId = useId();
   const switched = useRef(false);
   const { levels, moving } = useAnimatedLevels(bench.data);
+  // Devices that run short of energy under the rules this bench runs (asked again when it switches).
+  const energy = useShortDevices(siteId, bench.data?.session.source ?? "active", !!bench.data);
 
   // "Try on bench" opens ?source=draft: switch an existing sandbox to the rules asked for, once.
   const { mutate } = call;
@@ -101,7 +104,7 @@ export function BenchPanel({ siteId, source }: { siteId: string; source?: BenchS
             <div key={z.id ?? "none"} className="space-y-2">
               <h3 className="text-sm font-bold text-slate">{z.name}</h3>
               <ul className="space-y-2">
-                {z.devices.map((d) => <DeviceControl key={d.id} device={d} state={view.state} isBusy={isBusy} onAct={act} />)}
+                {z.devices.map((d) => <DeviceControl key={d.id} device={d} state={view.state} isBusy={isBusy} onAct={act} energy={{ siteId, source: view.session.source, short: energy.byDevice.get(d.id) }} />)}
               </ul>
             </div>
           ))}

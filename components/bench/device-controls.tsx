@@ -1,10 +1,14 @@
 "use client";
 
 import { useId, useState } from "react";
+import { ShortMark } from "@/components/energy/short-mark";
 import { DEVICE_KIND_INFO } from "@/lib/catalogue/device-kinds";
-import { READING_MEASURES, type BenchAction, type BenchDevice, type BenchStateDto, type ReadingMeasure } from "@/lib/validation/bench";
+import { READING_MEASURES, type BenchAction, type BenchDevice, type BenchSource, type BenchStateDto, type ReadingMeasure } from "@/lib/validation/bench";
+import type { ShortDeviceDto } from "@/lib/validation/energy";
 
 type Props = { device: BenchDevice; state: BenchStateDto; isBusy: boolean; onAct: (action: BenchAction) => void };
+/** The device runs short of energy under the rules the bench runs (shown, never enforced: the bench still sends its events). */
+type EnergyMark = { siteId: string; source: BenchSource; short?: ShortDeviceDto };
 
 const btn = "rounded-md border border-line bg-paper px-2.5 py-1 text-sm font-semibold hover:border-ink disabled:opacity-50";
 
@@ -86,7 +90,7 @@ function RockerControl({ device, isBusy, onAct }: Omit<Props, "state">) {
 }
 
 /** One device as something to operate by hand; outputs (luminaires, relays) have no control here. */
-export function DeviceControl({ device, state, isBusy, onAct }: Props) {
+export function DeviceControl({ device, state, isBusy, onAct, energy }: Props & { energy?: EnergyMark }) {
   const info = DEVICE_KIND_INFO[device.kind];
   const s = state.sensors;
   let body: React.ReactNode = null;
@@ -152,6 +156,7 @@ export function DeviceControl({ device, state, isBusy, onAct }: Props) {
     <li className="rounded-lg border border-line bg-paper p-3" id={`bench-device-${device.id}`} aria-label={device.name}>
       <p className="font-semibold leading-tight">{device.name}</p>
       <p className="mb-2 text-xs text-slate">{info.label}</p>
+      {energy?.short ? <ShortMark siteId={energy.siteId} device={energy.short} source={energy.source} className="-mt-1 mb-2" /> : null}
       {body}
     </li>
   );

@@ -2,9 +2,11 @@
 
 import "@xyflow/react/dist/style.css";
 import { Background, Controls, getNodesBounds, MarkerType, MiniMap, ReactFlow, ReactFlowProvider, useNodesInitialized, useReactFlow, type Connection, type Edge } from "@xyflow/react";
+import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { fetchJson } from "@/components/api/fetch-json";
+import { useShortDevices } from "@/components/energy/short-mark";
 import type { RuleNode } from "@/lib/rules/graph";
 import { autoLayout } from "@/lib/rules/layout";
 import { newNode, paletteFor, type NodeKind, type NodeType, type PaletteSite } from "@/lib/rules/palette";
@@ -20,6 +22,7 @@ import { describeNode, Inspector } from "./inspector";
 import { nodeTypes } from "./nodes/node-types";
 import { DRAG_TYPE, PalettePanel } from "./palette-panel";
 import { ProblemsList, SentenceList } from "./rule-lists";
+import { ShortNotice } from "./short-notice";
 import { useAutosave, type SaveStatus } from "./use-autosave";
 import { useCanvasGraph } from "./use-canvas-graph";
 import { useCanvasKeys } from "./use-canvas-keys";
@@ -71,7 +74,17 @@ function Editor({ siteId, site, names, canActivate, initial }: Props) {
   const onChange = useCallback(() => changedRef.current(), []);
   const [startGraph] = useState(() => placeMissing(initial.draft.graph));
   const g = useCanvasGraph(startGraph, onChange);
-  const autosave = useAutosave({ siteId, initialRevision: initial.draft.revision, getGraph: g.current, onProblems: setProblems });
+  // Which devices the saved draft leaves short of energy: asked again after every save (the problems arrive with it).
+  const client = useQueryClient();
+  const short = useShortDevices(siteId, "draft");
+  const onSaved = useCallback(
+    (p: Problem[]) => {
+      setProblems(p);
+      void client.invalidateQueries({ queryKey: ["sites", siteId, "energy"] });
+    },
+    [client, siteId],
+  );
+  const autosave = useAutosave({ siteId, initialRevision: initial.draft.revision, getGraph: g.current, onProblems: onSaved });
   useEffect(() => {
     changedRef.current = autosave.changed;
   }, [autosave.changed]);
@@ -100,7 +113,8 @@ function Editor({ siteId, site, names, canActivate, initial }: Props) {
     for (const p of problems) if (p.nodeId) map.set(p.nodeId, [...(map.get(p.nodeId) ?? []), p]);
     return map;
   }, [problems]);
-  const context = useMemo(() => ({ names, site, problemsByNode, isReadOnly }), [names, site, problemsByNode, isReadOnly]);
+  const shortByDevice = short.byDevice;
+  const context = useMemo(() => ({ siteId, names, site, problemsByNode, shortByDevice, isReadOnly }), [siteId, names, site, problemsByNode, shortByDevice, isReadOnly]);
   const palette = useMemo(() => paletteFor(site), [site]);
   const byId = useMemo(() => new Map(graph.nodes.map((n) => [n.id, n])), [graph]);
   const describe = useCallback((id: string) => (byId.get(id) ? describeNode(byId.get(id)!, names) : "a node no longer on the Canvas"), [byId, names]);
@@ -224,7 +238,7 @@ function Editor({ siteId, site, names, canActivate, initial }: Props) {
     try {
       const fresh = await reloadDraft();
       g.replace(fresh.draft.graph);
-      setProblems(fresh.problems);
+      onSaved(fresh.problems);
       setActive(fresh.active);
       autosave.resume(fresh.draft.revision, fresh.draft.graph, false);
       say(`Loaded the draft as it is now (revision ${fresh.draft.revision}).`);
@@ -359,6 +373,7 @@ function Editor({ siteId, site, names, canActivate, initial }: Props) {
               onConnect={(target) => connect(selected.id, target)}
               onDisconnect={disconnect}
               onDelete={deleteSelected}
+              notice={<ShortNotice siteId={siteId} rule={selected} shortByDevice={shortByDevice} />}
             />
           ) : selectedNodes.length > 1 ? (
             <div className="space-y-2 text-sm">

@@ -25,6 +25,8 @@ type Props = {
   onConnect: (targetId: string) => void;
   onDisconnect: (edgeId: string) => void;
   onDelete: () => void;
+  /** Said under the problems, e.g. that the node's device runs short of energy. */
+  notice?: React.ReactNode;
 };
 
 const input = "w-full rounded-md border bg-paper px-2 py-1.5 text-sm";
@@ -91,6 +93,7 @@ export function Inspector(props: Props) {
           ))}
         </ul>
       ) : null}
+      {props.notice}
       <fieldset disabled={isReadOnly} className="space-y-3">
         <legend className="sr-only">Settings</legend>
         {specs.length === 0 ? <p className="text-sm text-slate">This node has nothing to set.</p> : null}

@@ -91,6 +91,11 @@ export async function getShortDevices({ siteId, source }: { siteId: string; sour
 /** Devices a draft would make Short that the active rules leave alone: what Activate should warn about. */
 export async function getNewlyShortDevices({ siteId }: { siteId: string }): Promise<ShortDevice[]> {
   const [active, draft] = await Promise.all([getShortDevices({ siteId, source: "active" }), getShortDevices({ siteId, source: "draft" })]);
+  return newlyShortOf(active, draft);
+}
+
+/** The draft's Short devices that the active rules leave alone (for callers that already hold both lists). */
+export function newlyShortOf(active: ShortDevice[], draft: ShortDevice[]): ShortDevice[] {
   const before = new Set(active.map((d) => d.deviceId));
   return draft.filter((d) => !before.has(d.deviceId));
 }

@@ -25,6 +25,14 @@ export function readEnergyQuery(search: Record<string, string | string[] | undef
   return parsed.success ? parsed.data : energyQuerySchema.parse({});
 }
 
+/** GET …/energy/short?source=: which rules the Short list reads; `newlyShort` always compares the draft with the active rules. */
+export const energyShortQuerySchema = energyQuerySchema.pick({ source: true }).strict();
+
+/** One device that runs short of energy, and the Canvas nodes (rules) that make it so. */
+export type ShortDeviceDto = { deviceId: string; name: string; margin: number | null; ruleNodeIds: string[] };
+/** GET /api/sites/{siteId}/energy/short */
+export type ShortDevicesDto = { source: EnergySource; short: ShortDeviceDto[]; newlyShort: ShortDeviceDto[] };
+
 export const deviceEnergyParamsSchema = z.object({ siteId: idSchema, deviceId: idSchema }).strict();
 
 /** The what-if controls on the device view, with the bounds the profile schema uses. */

@@ -56,13 +56,62 @@ test("textile case A is Short because of its 10 s humidity rule, and Covered onc
   // The sentence brings the path into view (selecting both its nodes); Escape clears that, then pick the trigger alone.
   await page.getByRole("tabpanel").getByRole("button", { name: new RegExp(CASE_A) }).click();
   await page.waitForTimeout(400);
+  // Before relaxing: the trigger carries the Short mark (words and a shape, linking to the draft's budget of its device).
+  const markA = page.locator('.react-flow__node[data-id="t-case-a-damp"]').getByRole("link", { name: new RegExp(`^Energy budget: ${CASE_A} runs short of energy under the draft`) });
+  await expect(markA).toContainText("Short: 10 s reports");
+  await expect(markA).toHaveAttribute("href", "/sites/larch-lane/energy/larch-lane-dev-climate-case-a?source=draft");
+  await page.screenshot({ path: "tmp/shots/energy-canvas-mark-1280.png" });
   await page.locator("body").press("Escape");
   await page.locator('.react-flow__node[data-id="t-case-a-damp"]').click();
   await page.getByRole("tab", { name: "Node" }).click();
+  const energyNote = page.getByRole("tabpanel").getByRole("note", { name: "Energy budget" });
+  await expect(energyNote).toContainText("Short of energy under the draft");
+  await expect(energyNote).toContainText("This trigger is one of the reasons (10 s reports)");
   const report = page.getByRole("tabpanel").getByLabel(/^Report every \(s\)/);
   await expect(report).toHaveValue("10");
   await report.fill("600");
   await expect(status).toContainText("All changes saved");
+  // Asked again after the save: the mark and the panel's note are gone.
+  await expect(markA).toHaveCount(0);
+  await expect(energyNote).toHaveCount(0);
+
+  // A change that makes another device Short: Activate warns, and still lets you activate.
+  await page.getByRole("tab", { name: /Paths/ }).click();
+  await page.getByRole("tabpanel").getByRole("button", { name: /Workshop climate sensor reads above 28 °C/ }).first().click();
+  await page.waitForTimeout(400);
+  await page.locator("body").press("Escape");
+  await page.locator('.react-flow__node[data-id="t-workshop-hot"]').click();
+  await page.getByRole("tab", { name: "Node" }).click();
+  await page.getByRole("tabpanel").getByLabel(/^Report every \(s\)/).fill("5");
+  await expect(status).toContainText("All changes saved");
+  const markWorkshop = page.locator('.react-flow__node[data-id="t-workshop-hot"]').getByRole("link", { name: /^Energy budget: Workshop climate sensor runs short of energy under the draft/ });
+  await expect(markWorkshop).toContainText("Short: 5 s reports");
+  await page.getByRole("button", { name: "Activate…" }).click();
+  const activate = page.getByRole("dialog", { name: "Activate the draft" });
+  const warning = activate.getByRole("alert", { name: "Energy warning" });
+  await expect(warning).toContainText("After this change, Workshop climate sensor would run short of energy.");
+  await expect(warning.getByRole("link", { name: "Workshop climate sensor: energy budget under the draft" })).toHaveAttribute("href", "/sites/larch-lane/energy/larch-lane-dev-climate-workshop?source=draft");
+  // Case A, Short under the active rules and not under the draft, is no warning.
+  await expect(warning).not.toContainText(CASE_A);
+  await expect(activate.getByRole("button", { name: "Activate these changes" })).toBeEnabled();
+  await page.screenshot({ path: "tmp/shots/energy-activate-warning-1280.png" });
+  await activate.getByRole("button", { name: "Cancel" }).click();
+  // Take the 5 s report back (Undo) so the rest of the suite finds the draft as before; the mark goes with it.
+  await page.getByRole("button", { name: "Undo" }).click();
+  await expect(status).toContainText("All changes saved");
+  await expect(markWorkshop).toHaveCount(0);
+
+  // The Test bench marks the device under the rules it runs: not under the relaxed draft, still under the active rules.
+  await page.goto("/sites/larch-lane/bench?source=draft");
+  const benchA = page.locator("#bench-device-larch-lane-dev-climate-case-a");
+  await expect(page.getByRole("radio", { name: /^Draft/ })).toBeChecked();
+  await expect(benchA).toBeVisible();
+  await expect(page.getByRole("link", { name: /^Energy budget: Workshop climate sensor/ })).toHaveCount(0);
+  await expect(benchA.getByRole("link", { name: /runs short of energy/ })).toHaveCount(0);
+  // The radio follows the server's session, so it turns checked when the switch has been stored.
+  await page.getByRole("radio", { name: /^Active rule set/ }).click();
+  await expect(page.getByRole("radio", { name: /^Active rule set/ })).toBeChecked();
+  await expect(benchA.getByRole("link", { name: new RegExp(`^Energy budget: ${CASE_A} runs short of energy under the active rules`) })).toContainText("Short");
 
   // Under the draft it is Covered; the active rules still make it Short.
   await page.goto(`${ENERGY}?source=draft`);
@@ -91,6 +140,12 @@ test("on a phone the budget and the device view stay readable", async ({ page, w
   await expect(page.getByRole("img", { name: /Chart of stored energy/ })).toBeVisible();
   await page.screenshot({ path: "tmp/shots/energy-chart-390.png", fullPage: true });
   await page.getByRole("figure").filter({ hasText: "Stored energy over the week" }).screenshot({ path: "tmp/shots/energy-chart-figure-390.png" });
+  // The bench's Short mark on a phone (under the active rules, where case A is Short).
+  await page.goto("/sites/larch-lane/bench?source=active");
+  const benchA = page.locator("#bench-device-larch-lane-dev-climate-case-a");
+  await expect(benchA.getByRole("link", { name: /runs short of energy under the active rules/ })).toBeVisible();
+  await benchA.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: "tmp/shots/energy-bench-mark-390.png" });
   await expectCleanPage(page, watch);
 });
 

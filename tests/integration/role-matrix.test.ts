@@ -31,6 +31,7 @@ import * as inboxReadRoute from "@/app/api/notices/inbox/read/route";
 import * as noticePrefsRoute from "@/app/api/notices/sites/[siteId]/preferences/route";
 import * as energyRoute from "@/app/api/sites/[siteId]/energy/route";
 import * as deviceEnergyRoute from "@/app/api/sites/[siteId]/energy/[deviceId]/route";
+import * as shortEnergyRoute from "@/app/api/sites/[siteId]/energy/short/route";
 import * as benchRoute from "@/app/api/sites/[siteId]/bench/route";
 import * as benchResetRoute from "@/app/api/sites/[siteId]/bench/reset/route";
 import * as benchActionsRoute from "@/app/api/sites/[siteId]/bench/actions/route";
@@ -197,6 +198,7 @@ const cases: Case[] = [
   { name: "POST rules/versions/{id}/activate", call: (c) => h(rulesRollbackRoute.POST)(req("POST", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, versionId: `${DEMO_SITE_ID}-rules-v1` })), expect: managers },
   { name: "GET rules/diff", call: (c) => h(rulesDiffRoute.GET)(req("GET", "/x?from=active&to=draft", { cookie: c }), site()), expect: managers },
   { name: "GET energy", call: (c) => h(energyRoute.GET)(req("GET", "/x?source=draft", { cookie: c }), site()), expect: managers },
+  { name: "GET energy/short", call: (c) => h(shortEnergyRoute.GET)(req("GET", "/x?source=draft", { cookie: c }), site()), expect: managers },
   { name: "GET device energy", call: (c) => h(deviceEnergyRoute.GET)(req("GET", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, deviceId: `${DEMO_SITE_ID}-dev-climate-case-a` })), expect: managers },
   { name: "GET /api/sites", call: (c) => h(sitesRoute.GET)(req("GET", "/api/sites", { cookie: c }), params({})), expect: { integrator: 200, manager: 200, occupant: 200, outsider: 200, signedOut: 401 } },
   {

@@ -157,9 +157,11 @@ describe("Rule set routes", () => {
     expect(await back.json()).toEqual({ versionId: v1, number: 1 });
     expect((await loadEngineInput(DEMO_SITE_ID)).versionId).toBe(v1);
     const rows = await getDb().select().from(ruleSetActivations);
-    expect(rows.map((r) => r.versionId)).toEqual([v2.versionId, v1]);
+    // The seed's activation of version 1, then version 2's, then the rollback's.
+    expect(rows.map((r) => r.versionId)).toEqual([v1, v2.versionId, v1]);
     const after = (await (await h(versionsRoute.GET)(req("GET", "/x", { cookie: manager }), site())).json()) as VersionsDto;
-    expect(after.versions[1]).toMatchObject({ number: 1, isActive: true, activations: [{ by: "r-manager" }] });
+    expect(after.versions[1]).toMatchObject({ number: 1, isActive: true });
+    expect(after.versions[1].activations.map((a) => a.by).sort()).toEqual([null, "r-manager"].sort());
     // The draft is left alone by a rollback.
     expect((await getRules()).draft.revision).toBe(draft.revision);
     // Another site's version id is not found.

@@ -1,6 +1,7 @@
 "use client";
 
 import { Handle, Position } from "@xyflow/react";
+import { demandWords, ShortMark } from "@/components/energy/short-mark";
 import type { RuleNode } from "@/lib/rules/graph";
 import { typeLabel } from "@/lib/rules/palette";
 import { nodeSubject } from "@/lib/rules/sentence";
@@ -38,12 +39,14 @@ function Outline({ kind, isSelected, hasError }: { kind: RuleNode["kind"]; isSel
 }
 
 export function NodeFrame({ rule, isSelected }: { rule: RuleNode; isSelected: boolean }) {
-  const { names, problemsByNode } = useCanvasContext();
+  const { siteId, names, problemsByNode, shortByDevice } = useCanvasContext();
   const problems = problemsByNode.get(rule.id) ?? [];
   const errors = problems.filter((p) => p.severity === "error").length;
   const warnings = problems.length - errors;
   const { subject, detail } = nodeSubject(rule, names);
   const { width, height } = NODE_SIZE[rule.kind];
+  const deviceId = rule.kind === "trigger" ? (rule.params as { device?: unknown }).device : undefined;
+  const short = typeof deviceId === "string" ? shortByDevice.get(deviceId) : undefined;
   const pad = rule.kind === "trigger" ? "pl-6 pr-3" : rule.kind === "action" ? "pl-3 pr-5" : "px-2.5";
   return (
     <div style={{ width, height }} className="relative text-ink" title={problems.map((p) => p.message).join("\n") || undefined}>
@@ -63,6 +66,12 @@ export function NodeFrame({ rule, isSelected }: { rule: RuleNode; isSelected: bo
             <span aria-hidden="true">{errors ? "✕ " : "! "}</span>
             {errors ? `${errors} error${errors > 1 ? "s" : ""}` : `${warnings} warning${warnings > 1 ? "s" : ""}`}
           </p>
+        ) : null}
+        {short ? (
+          // Below the node's edge like the problem count above it; nodrag/nopan so a click follows the link.
+          <span className="nodrag nopan absolute -bottom-2.5 left-6 right-2 flex">
+            <ShortMark siteId={siteId} device={short} source="draft" detail={short.ruleNodeIds.includes(rule.id) ? demandWords(rule.params) : undefined} />
+          </span>
         ) : null}
       </div>
     </div>
