@@ -210,6 +210,7 @@ async function main() {
   const engineRate = steps.length / (engineMs / 1000);
   const stateBytes = Buffer.byteLength(JSON.stringify(engine.getState()));
   const recentIdsBytes = Buffer.byteLength(JSON.stringify(engine.getState().recentEventIds));
+  const recentIdsCount = engine.getState().recentEventIds.length;
   const outputBytes = steps.map(({ step }) => Buffer.byteLength(JSON.stringify({ changes: step.changes, commands: step.commands, notices: step.notices, trace: step.trace })));
   sampleRss();
 
@@ -282,7 +283,7 @@ async function main() {
   row("   engine_steps.output JSON per event, mean", outputBytes.reduce((a, b) => a + b, 0) / outputBytes.length, "bytes");
   row("   engine_steps.output JSON per event, p99", quantile(outputBytes, 0.99), "bytes");
   row("   engine_states.state JSON (read and rewritten every call)", stateBytes, "bytes");
-  row("   … of which recentEventIds (1,000 ids)", recentIdsBytes, "bytes");
+  row(`   … of which recentEventIds (${recentIdsCount.toLocaleString("en")} ids)`, recentIdsBytes, "bytes");
   row(`   commands / notices produced in the measured batches`, commands, `/ ${notices} notices`);
 
   // What one single-event call writes, replayed alone: state read + event + step + state rewrite, one commit.
@@ -299,7 +300,7 @@ async function main() {
     if (i % 20 === 0) await yieldToEventLoop();
   }
 
-  // The same, with the state the store would keep without the engine's 1,000 recent ids (the event log's unique index already drops repeats).
+  // The same, with the state cut to its last 20 recent ids (the event log's unique index already drops repeats).
   const leanState = { ...bigState, recentEventIds: bigState.recentEventIds.slice(-20) };
   const leanWriteMs: number[] = [];
   for (const [i, { event: e, step }] of steps.slice(300, 600).entries()) {
