@@ -81,12 +81,15 @@ export function siteRoute<S extends z.ZodType<{ siteId: string }> = typeof siteP
       const { user, session } = await resolve(request);
       if (!user) throw new AppError("unauthenticated", "Sign in to continue.");
       guardOrigin(request);
-      const schema = options.params ?? siteParamsSchema;
-      const params = schema.parse(await context?.params) as z.infer<S>;
-      const membership = await getMembership({ siteId: params.siteId, userId: user.id });
+      const raw = await context?.params;
+      // Who may ask comes first: the other params are only parsed for a member with the permission,
+      // so a non-member learns nothing about a site (not even which ids it would refuse).
+      const { siteId } = siteParamsSchema.pick({ siteId: true }).strip().parse(raw);
+      const membership = await getMembership({ siteId, userId: user.id });
       // Not a member: the site does not exist as far as this caller can tell.
       if (!membership) throw new AppError("not_found", "No such site.");
       if (!can(membership.role, permission)) throw new AppError("forbidden", "Your role on this site does not allow this.");
+      const params = (options.params ?? siteParamsSchema).parse(raw) as z.infer<S>;
       return finish(await fn({ request, params, user, session, siteId: params.siteId, membership }), session);
     } catch (err) {
       return errorResponse(err);

@@ -20,6 +20,8 @@ import * as importRoute from "@/app/api/sites/[siteId]/devices/import/route";
 import * as exportRoute from "@/app/api/sites/[siteId]/devices/export/route";
 import * as siteRoute from "@/app/api/sites/[siteId]/route";
 import * as keysRoute from "@/app/api/sites/[siteId]/keys/route";
+import * as keyRoute from "@/app/api/sites/[siteId]/keys/[keyId]/route";
+import * as emergencyClearRoute from "@/app/api/sites/[siteId]/emergency/clear/route";
 import * as sceneRoute from "@/app/api/sites/[siteId]/scenes/[sceneId]/route";
 import * as pushConfigRoute from "@/app/api/push/config/route";
 import * as pushSubscriptionsRoute from "@/app/api/push/subscriptions/route";
@@ -165,6 +167,10 @@ const cases: Case[] = [
   { name: "POST bench/scenario/play", call: (c) => h(benchPlayRoute.POST)(req("POST", "/x", { cookie: c, body: {} }), params({ siteId: DEMO_SITE_ID, scenarioId: `${DEMO_SITE_ID}-bench-evening-visitor` })), expect: managers },
   { name: "GET keys", call: (c) => h(keysRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: integratorOnly },
   { name: "POST keys", call: (c) => h(keysRoute.POST)(req("POST", "/x", { cookie: c, body: { name: `K ${uniq()}` } }), site()), expect: created(integratorOnly) },
+  // The permission is checked before the key is looked up: only the integrator learns the key is not there.
+  { name: "DELETE key (no such key)", call: (c) => h(keyRoute.DELETE)(req("DELETE", "/x", { cookie: c }), params({ siteId: DEMO_SITE_ID, keyId: "00000000-0000-4000-8000-000000000000" })), expect: { ...integratorOnly, integrator: 404 } },
+  // Nothing latched on the demo site here: allowed roles get the conflict, the rest never reach the check.
+  { name: "POST emergency/clear (none latched)", call: (c) => h(emergencyClearRoute.POST)(req("POST", "/x", { cookie: c }), site()), expect: { ...managers, integrator: 409, manager: 409 } },
   { name: "GET site", call: (c) => h(siteRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
   { name: "PATCH site", call: (c) => h(siteRoute.PATCH)(req("PATCH", "/x", { cookie: c, body: { timeZone: "WET" } }), site()), expect: integratorOnly },
   { name: "GET floors", call: (c) => h(floorsRoute.GET)(req("GET", "/x", { cookie: c }), site()), expect: everyone },
@@ -314,5 +320,14 @@ describe("role × endpoint matrix (server-side checks)", () => {
     expect(Object.keys((await bad.json()).fields).sort()).toEqual(["latitude", "longitude", "name", "timeZone"]);
     const notJson = await h(sitesRoute.POST)(new Request("http://localhost:3000/api/sites", { method: "POST", headers: { cookie: cookies.integrator!, origin: "http://localhost:3000" }, body: "{oops" }), params({}));
     expect(notJson.status).toBe(400);
+  });
+});
+
+describe("params are checked after the caller's role", () => {
+  it("a malformed key id is a 422 for the integrator, but a 403 for a manager and a 404 for an outsider", async () => {
+    const bad = params({ siteId: DEMO_SITE_ID, keyId: "not-a-uuid" });
+    expect((await h(keyRoute.DELETE)(req("DELETE", "/x", { cookie: cookies.integrator! }), bad)).status).toBe(422);
+    expect((await h(keyRoute.DELETE)(req("DELETE", "/x", { cookie: cookies.manager! }), bad)).status).toBe(403);
+    expect((await h(keyRoute.DELETE)(req("DELETE", "/x", { cookie: cookies.outsider! }), bad)).status).toBe(404);
   });
 });
