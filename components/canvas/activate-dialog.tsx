@@ -9,6 +9,7 @@ import type { ShortDeviceDto } from "@/lib/validation/energy";
 import type { Problem } from "@/lib/rules/validate";
 import type { ActivateDto, DiffDto } from "@/lib/validation/rules";
 import { Dialog } from "./dialog";
+import { DialogActions } from "./dialog-actions";
 
 /** The change summary, rule by rule, in sentences. */
 export function DiffSummary({ diff }: { diff: DiffDto }) {
@@ -136,19 +137,7 @@ export function ActivateDialog({
           </ul>
         </div>
       ) : null}
-      {error ? (
-        <p role="alert" className="mt-3 font-semibold text-clay">
-          {error}
-        </p>
-      ) : null}
-      <div className="mt-4 flex justify-end gap-2">
-        <button type="button" onClick={onClose} className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-fog">
-          Cancel
-        </button>
-        <button type="button" disabled={busy || errors.length > 0 || !diff.data} onClick={() => void confirm()} className="rounded-md bg-moss px-3 py-1.5 text-sm font-semibold text-paper disabled:opacity-50">
-          {busy ? "Activating…" : "Activate these changes"}
-        </button>
-      </div>
+      <DialogActions error={error} onCancel={onClose} onConfirm={() => void confirm()} isDisabled={errors.length > 0 || !diff.data} isBusy={busy} label="Activate these changes" busyLabel="Activating…" />
     </Dialog>
   );
 }

@@ -7,6 +7,7 @@ import { sendJson } from "@/components/devices/use-inventory";
 import type { DiffDto, VersionDto, VersionsDto } from "@/lib/validation/rules";
 import { DiffSummary } from "./activate-dialog";
 import { Dialog } from "./dialog";
+import { DialogActions } from "./dialog-actions";
 
 const when = (iso: string) => new Intl.DateTimeFormat(undefined, { dateStyle: "medium", timeStyle: "short" }).format(new Date(iso));
 
@@ -60,35 +61,26 @@ function RollbackDialog({ siteId, version, onClose }: { siteId: string; version:
     <Dialog open={!!version} title={`Roll back to version ${version?.number ?? ""}`} onClose={onClose} wide>
       <p className="mb-2 text-sm text-slate">What changes against the active version if version {version?.number} runs again. The draft stays as it is.</p>
       {diff.data ? <DiffSummary diff={diff.data} /> : diff.isError ? <p role="alert">{diff.error.message}</p> : <p role="status">Working out the changes…</p>}
-      {error ? (
-        <p role="alert" className="mt-2 font-semibold text-clay">
-          {error}
-        </p>
-      ) : null}
-      <div className="mt-4 flex justify-end gap-2">
-        <button type="button" onClick={onClose} className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-fog">
-          Cancel
-        </button>
-        <button
-          type="button"
-          disabled={busy || !diff.data}
-          className="rounded-md bg-moss px-3 py-1.5 text-sm font-semibold text-paper disabled:opacity-50"
-          onClick={async () => {
-            setBusy(true);
-            try {
-              await sendJson(`/api/sites/${siteId}/rules/versions/${encodeURIComponent(version!.id)}/activate`, "POST");
-              await client.invalidateQueries({ queryKey: ["sites", siteId, "rules"] });
-              onClose();
-            } catch (err) {
-              setError(err instanceof ApiError ? err.message : "The console could not reach the server.");
-            } finally {
-              setBusy(false);
-            }
-          }}
-        >
-          Activate version {version?.number}
-        </button>
-      </div>
+      <DialogActions
+        error={error}
+        onCancel={onClose}
+        isDisabled={!diff.data}
+        isBusy={busy}
+        label={`Activate version ${version?.number ?? ""}`}
+        busyLabel="Activating…"
+        onConfirm={async () => {
+          setBusy(true);
+          try {
+            await sendJson(`/api/sites/${siteId}/rules/versions/${encodeURIComponent(version!.id)}/activate`, "POST");
+            await client.invalidateQueries({ queryKey: ["sites", siteId, "rules"] });
+            onClose();
+          } catch (err) {
+            setError(err instanceof ApiError ? err.message : "The console could not reach the server.");
+          } finally {
+            setBusy(false);
+          }
+        }}
+      />
     </Dialog>
   );
 }

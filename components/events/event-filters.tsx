@@ -2,6 +2,7 @@
 
 import { NamedOptions } from "@/components/ui/named-options";
 import { useId } from "react";
+import { useIsHydrated } from "@/components/forms/hydrated-fieldset";
 import { DEVICE_KIND_INFO } from "@/lib/catalogue/device-kinds";
 import type { SiteContext } from "./types";
 
@@ -11,11 +12,13 @@ export const EMPTY_FILTER: FilterState = { device: "", zone: "", kind: "", from:
 /** Device, zone, kind and a time range on the site's clock. */
 export function EventFilters({ ctx, value, onChange, error }: { ctx: SiteContext; value: FilterState; onChange: (f: FilterState) => void; error: string | null }) {
   const id = useId();
+  const isHydrated = useIsHydrated();
   const kinds = [...new Set(ctx.devices.flatMap((d) => DEVICE_KIND_INFO[d.kind].reports))].sort();
   const set = (k: keyof FilterState) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => onChange({ ...value, [k]: e.target.value });
   const field = "mt-1 w-full rounded-md border border-line bg-paper px-2 py-1.5 text-sm";
   return (
-    <fieldset className="grid gap-3 rounded-xl border border-line bg-paper p-4 sm:grid-cols-2 lg:grid-cols-5">
+    // Disabled until hydrated, so a filter chosen in the first moment is not lost (the log is server-rendered).
+    <fieldset disabled={!isHydrated} className="grid gap-3 rounded-xl border border-line bg-paper p-4 sm:grid-cols-2 lg:grid-cols-5">
       <legend className="px-1 text-sm font-bold">Filter the log</legend>
       <label className="text-sm font-semibold" htmlFor={`${id}-device`}>
         Device

@@ -2,6 +2,7 @@
 
 import { useId, useState } from "react";
 import { ApiError, fetchJson } from "@/components/api/fetch-json";
+import { HydratedFieldset } from "@/components/forms/hydrated-fieldset";
 import type { SiteContext } from "@/components/events/types";
 import { instantToLocalInput, localInputToInstant } from "@/lib/eventlog/local-input";
 import type { RuleSetChoice } from "@/lib/validation/events";
@@ -65,6 +66,7 @@ export function ReplayForm({ ctx, options, initialWindow, onQueued }: { ctx: Sit
         Run a replay
       </h2>
       <p className="text-xs text-slate">Runs the stored log (gateway and imported events) through the chosen rules in virtual time, starting from an empty state at the start of the window. Nothing is sent to the site.</p>
+      <HydratedFieldset>
       <div className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <label className="text-sm font-semibold" htmlFor={`${id}-from`}>
           From <span className="font-normal text-slate">(site time, {ctx.timeZone})</span>
@@ -108,6 +110,7 @@ export function ReplayForm({ ctx, options, initialWindow, onQueued }: { ctx: Sit
       <button type="submit" disabled={isBusy} className="mt-3 rounded-md bg-ink px-4 py-2 font-semibold text-fog disabled:opacity-50">
         {b ? "Run Compare" : "Run replay"}
       </button>
+      </HydratedFieldset>
     </form>
   );
 }
