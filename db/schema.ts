@@ -237,6 +237,8 @@ export const noticesOutbox = sqliteTable(
     kind: text("kind").notNull().default("other"),
     /** The console page a click on the notice opens. */
     url: text("url"),
+    /** The zone of the device whose event or timer set the notice off: occupants of other zones are spared it. */
+    zoneId: text("zone_id").references(() => zones.id, { onDelete: "set null" }),
     leaseOwner: text("lease_owner"),
     leaseUntil: integer("lease_until"),
     createdAt: createdAt(),

@@ -83,7 +83,8 @@ async function saveSandbox({ siteId, session, sandbox, ctx, source, deliverNotic
               text: `[Test bench] ${n.text}`,
               // The real time it is sent; the text carries the bench clock's time.
               at: sentAt,
-              kind: (n as { kind?: string }).kind ?? "other",
+              kind: n.kind,
+              zoneId: n.zoneId,
               url: `/sites/${siteId}/bench`,
             })),
           )

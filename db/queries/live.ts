@@ -29,7 +29,7 @@ export async function loadEngineInput(siteId: string) {
 
 /** An outbox row for one notice; a click on it opens the site's overview. */
 function outboxRow(siteId: string, n: Notice) {
-  return { siteId, dedupeKey: n.dedupeKey, recipient: n.recipient, channels: n.channels, text: n.text, at: n.at, kind: n.kind, url: `/sites/${siteId}` };
+  return { siteId, dedupeKey: n.dedupeKey, recipient: n.recipient, channels: n.channels, text: n.text, at: n.at, kind: n.kind, zoneId: n.zoneId, url: `/sites/${siteId}` };
 }
 
 function nextDue(state: EngineState): number | null {

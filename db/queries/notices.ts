@@ -1,8 +1,7 @@
 import { and, desc, eq, gte, inArray, isNotNull, isNull, lt, lte, ne, or, sql } from "drizzle-orm";
 import webpush from "web-push";
 import { getDb } from "@/db";
-import { appSettings, benchSteps, devices, engineSteps, events, inboxItems, memberships, noticeDeliveries, noticePreferences, noticesOutbox, pushSubscriptions, sites, users } from "@/db/schema";
-import type { TraceEntry } from "@/lib/bus/types";
+import { appSettings, inboxItems, memberships, noticeDeliveries, noticePreferences, noticesOutbox, pushSubscriptions, sites, users } from "@/db/schema";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/auth/roles";
@@ -177,48 +176,6 @@ export async function claimOutbox({ owner, now, leaseMs, limit = 20 }: { owner: 
     .returning();
 }
 
-/**
- * The zone a notice is about: the zone of the device whose event (or timer)
- * started it. The dedupe key is "<origin>/<rule>/<action node>/<recipient>"
- * (lib/bus/actions.ts); the origin is an event id or "timer:<seq>".
- */
-export async function noticeZone(db: Db, row: Pick<OutboxRow, "siteId" | "dedupeKey" | "recipient" | "at">): Promise<string | null> {
-  const suffix = `/${row.recipient}`;
-  if (!row.dedupeKey.endsWith(suffix)) return null;
-  const parts = row.dedupeKey.slice(0, -suffix.length).split("/");
-  if (parts.length < 3) return null;
-  const origin = parts.slice(0, -2).join("/");
-  let device: string | null = null;
-  // The Test bench writes "bench:<session id>:<origin>/…" (db/queries/bench.ts); its trace is in bench_steps.
-  const bench = /^bench:([^:]+):(.+)$/.exec(origin);
-  if (bench) {
-    const steps = await db.select({ output: benchSteps.output }).from(benchSteps).where(eq(benchSteps.sessionId, bench[1])).orderBy(desc(benchSteps.seq)).limit(50);
-    for (const s of steps) {
-      const trace = (s.output as { trace?: TraceEntry[] }).trace ?? [];
-      device = trace.find((t) => t.origin === bench[2] && t.trigger.device)?.trigger.device ?? null;
-      if (device) break;
-    }
-  } else if (origin.startsWith("timer:")) {
-    const steps = await db
-      .select({ output: engineSteps.output })
-      .from(engineSteps)
-      .where(and(eq(engineSteps.siteId, row.siteId), isNull(engineSteps.eventSeq), gte(engineSteps.at, row.at)))
-      .orderBy(engineSteps.seq)
-      .limit(5);
-    for (const s of steps) {
-      const trace = (s.output as { trace?: TraceEntry[] }).trace ?? [];
-      device = trace.find((t) => t.origin === origin && t.trigger.device)?.trigger.device ?? null;
-      if (device) break;
-    }
-  } else {
-    const [ev] = await db.select({ device: events.device }).from(events).where(and(eq(events.siteId, row.siteId), eq(events.eventId, origin)));
-    device = ev?.device ?? null;
-  }
-  if (!device) return null;
-  const [d] = await db.select({ zoneId: devices.zoneId }).from(devices).where(and(eq(devices.siteId, row.siteId), eq(devices.id, device)));
-  return d?.zoneId ?? null;
-}
-
 export type Expansion = { recipients: number; deliveries: number; inbox: number };
 
 /**
@@ -235,7 +192,8 @@ export async function expandOutboxRow({ row, owner, now }: { row: OutboxRow; own
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.siteId, row.siteId));
-  const zoneId = await noticeZone(db, row);
+  // The engine notes the zone of the device that set the notice off (null for a clock or a named timer).
+  const zoneId = row.zoneId;
   const userIds = site ? resolveRecipients({ recipient: row.recipient, kind: row.kind, zoneId, members }) : [];
   const prefRows = userIds.length ? await db.select().from(noticePreferences).where(and(eq(noticePreferences.siteId, row.siteId), inArray(noticePreferences.userId, userIds))) : [];
   const prefsOf = new Map(prefRows.map((p) => [p.userId, toPrefs(p)]));

@@ -62,10 +62,12 @@ export function applyAction(rt: Runtime, occ: Occurrence, rule: IndexedRule, act
       const recipients = "role" in to ? [`role:${to.role}`] : [...new Set(to.people)].map((p) => `person:${p}`);
       const text = renderNotice(rt, action.params.text, occ);
       const kind = noticeKindFor(occ.type, action.params.kind);
+      // What it is about, for occupants' zones: the zone of the device that set it off (none for a clock or a named timer).
+      const zoneId = occ.device ? (rt.model.devices.get(occ.device)?.zoneId ?? null) : null;
       for (const recipient of recipients) {
         // Event + rule + action + recipient: a retried event never sends the same notice twice.
         const dedupeKey = `${occ.origin}/${rule.id}/${action.nodeId}/${recipient}`;
-        rt.out.notices.push(withCause(cause, { at, dedupeKey, recipient, channels: [...action.params.channels], text, kind }));
+        rt.out.notices.push(withCause(cause, { at, dedupeKey, recipient, channels: [...action.params.channels], text, kind, zoneId }));
       }
       return `Notice to ${recipients.join(", ")} by ${action.params.channels.join(", ")}.`;
     }

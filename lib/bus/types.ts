@@ -84,7 +84,7 @@ export type GatewayCommand = Cause & {
   devices: string[];
 };
 
-export type Notice = Cause & { at: number; dedupeKey: string; recipient: string; channels: string[]; text: string; kind: NoticeKind };
+export type Notice = Cause & { at: number; dedupeKey: string; recipient: string; channels: string[]; text: string; kind: NoticeKind; zoneId: string | null };
 
 export type ActionTrace = { ruleId: string | null; actionId: string | null; type: string; outcome: string };
 

@@ -229,7 +229,7 @@ describe("the demo Rule set through the gateway API", () => {
     const notices = await getDb().select().from(noticesOutbox).where(eq(noticesOutbox.siteId, DEMO_SITE_ID));
     const visitor = notices.filter((n) => n.recipient === "role:occupant");
     expect(visitor).toHaveLength(1);
-    expect(visitor[0]).toMatchObject({ text: "Someone is on the front path (18:00).", status: "pending", at: local(18, 0, 20), kind: "visitor", url: `/sites/${DEMO_SITE_ID}` });
+    expect(visitor[0]).toMatchObject({ text: "Someone is on the front path (18:00).", status: "pending", at: local(18, 0, 20), kind: "visitor", url: `/sites/${DEMO_SITE_ID}`, zoneId: `${DEMO_SITE_ID}-zone-path` });
     expect(visitor[0].channels).toEqual(["push", "in-app"]);
 
     // The Trace names the rules: compile.ts joins the trigger and gate node ids with ">" (lib/rules/compile.ts).

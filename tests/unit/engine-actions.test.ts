@@ -93,8 +93,8 @@ describe("actions", () => {
     const b = buttons([{ id: "a", type: "notice", params: { to: { people: ["p-1", "p-2", "p-1"] }, channels: ["push", "email"], text: "{device} pressed in {zone} at {time} {other}" } }]);
     const step = b.press(1, 5);
     expect(step.notices).toEqual([
-      { origin: "p0", ruleId: "t1", actionId: "a", at: T0 + 5 * MIN, dedupeKey: "p0/t1/a/person:p-1", recipient: "person:p-1", channels: ["push", "email"], text: "Shop door rocker pressed in Shop floor at 08:05 {other}", kind: "other" },
-      { origin: "p0", ruleId: "t1", actionId: "a", at: T0 + 5 * MIN, dedupeKey: "p0/t1/a/person:p-2", recipient: "person:p-2", channels: ["push", "email"], text: "Shop door rocker pressed in Shop floor at 08:05 {other}", kind: "other" },
+      { origin: "p0", ruleId: "t1", actionId: "a", at: T0 + 5 * MIN, dedupeKey: "p0/t1/a/person:p-1", recipient: "person:p-1", channels: ["push", "email"], text: "Shop door rocker pressed in Shop floor at 08:05 {other}", kind: "other", zoneId: "larch-lane-zone-shop" },
+      { origin: "p0", ruleId: "t1", actionId: "a", at: T0 + 5 * MIN, dedupeKey: "p0/t1/a/person:p-2", recipient: "person:p-2", channels: ["push", "email"], text: "Shop door rocker pressed in Shop floor at 08:05 {other}", kind: "other", zoneId: "larch-lane-zone-shop" },
     ]);
   });
 

@@ -1,0 +1,1 @@
+ALTER TABLE `notices_outbox` ADD `zone_id` text REFERENCES zones(id) ON DELETE set null;
