@@ -15,10 +15,11 @@ import { crosses } from "@/lib/bus/derive";
 import { createEngine, createReplayEngine } from "@/lib/bus/engine";
 import type { DeviceConfig, DeviceEvent, ZoneConfig } from "@/lib/bus/types";
 import { compileGraph, type RuleJson } from "@/lib/rules/compile";
-import { chainEdges, parseRuleGraph, type RuleGraphInput } from "@/lib/rules/graph";
+import { parseRuleGraph } from "@/lib/rules/graph";
 import { OPERATORS, registerOperators } from "@/lib/rules/registry";
 import { buildRuleIndex, type RuleIndex, type ThresholdWatch } from "@/lib/rules/rule-index";
 import { prng } from "../lib/random/prng";
+import { synthRuleGraph, type SyntheticSite } from "./synthetic-rules";
 
 const SEED = 20240620;
 // BENCH_SIZES=200 BENCH_ONLY=replay narrows a run (e.g. under --cpu-prof); the ceiling always runs, for the ratios.
@@ -45,36 +46,17 @@ for (let i = 0; i < 8; i++) add(`climate-${i}`, "climate-sensor", `z${i}`);
 for (let i = 0; i < 8; i++) add(`motion-${i}`, "solar-motion-light", `z${i}`);
 const site = { site: { timeZone: "WET", latitude: 51.2, longitude: -2.1 }, devices, zones, scenes: [] };
 
-function synthGraph(count: number, rand: () => number): RuleGraphInput {
-  const pick = <T>(xs: T[]) => xs[Math.floor(rand() * xs.length)];
-  const int = (lo: number, hi: number) => lo + Math.floor(rand() * (hi - lo + 1));
-  const nodes: RuleGraphInput["nodes"] = [];
-  const edges: RuleGraphInput["edges"] = [];
-  for (let i = 0; i < count; i++) {
-    const r = rand();
-    const trigger =
-      r < 0.55 ? { type: "rocker-press", params: { device: `rocker-${int(0, 39)}`, button: int(1, 4) } }
-      : r < 0.8 ? { type: pick(["light-level-below", "light-level-above"]), params: { device: `lux-${int(0, 15)}`, lux: int(1, 40) * 25, hysteresisLux: 20 } }
-      : r < 0.9 ? { type: "temperature-above", params: { device: `climate-${int(0, 7)}`, celsius: int(20, 30), hysteresis: 0.5 } }
-      : { type: "motion-detected", params: { device: `motion-${int(0, 7)}` } };
-    nodes.push({ id: `t${i}`, kind: "trigger", ...trigger } as RuleGraphInput["nodes"][number]);
-    const gates: string[] = [];
-    for (let g = 0; g < int(0, 2); g++) {
-      const q = rand();
-      const gate =
-        q < 0.4 ? { type: "site-mode-is", params: { modes: [pick(["open", "closed"])] } }
-        : q < 0.7 ? { type: "light-level-below", params: { device: `lux-${int(0, 15)}`, lux: int(1, 40) * 25 } }
-        : q < 0.85 ? { type: "zone-occupied", params: { zone: `z${int(0, 7)}` } }
-        : q < 0.95 ? { type: "days-of-week", params: { days: ["mon", "tue", "wed", "thu", "fri"] } }
-        : { type: "time-window", params: { from: { kind: "fixed", time: "07:00" }, to: { kind: "fixed", time: "19:00" } } };
-      nodes.push({ id: `g${i}-${g}`, kind: "gate", ...gate } as RuleGraphInput["nodes"][number]);
-      gates.push(`g${i}-${g}`);
-    }
-    nodes.push({ id: `a${i}`, kind: "action", type: "set-level", params: { target: { zone: `z${int(0, 19)}` }, level: int(0, 10) * 10, fadeMs: 1000 } });
-    edges.push(...chainEdges(`t${i}`, ...gates, `a${i}`));
-  }
-  return { nodes, edges };
-}
+// Rocker i is in zone i % 20; gates name the first 8 zones, actions any of the 20.
+const range = (n: number, name: (i: number) => string) => Array.from({ length: n }, (_, i) => name(i));
+const synthSite: SyntheticSite = {
+  rockers: range(40, (i) => `rocker-${i}`),
+  luxSensors: range(16, (i) => `lux-${i}`),
+  climateSensors: range(8, (i) => `climate-${i}`),
+  motionSensors: range(8, (i) => `motion-${i}`),
+  occupiedZones: range(8, (i) => `z${i}`),
+  actionZones: range(20, (i) => `z${i}`),
+};
+const synthGraph = (count: number, rand: () => number) => synthRuleGraph(count, rand, synthSite, { rocker: 0.55, lux: 0.25, temperature: 0.1, motion: 0.1, vacancy: 0 });
 
 function synthEvents(rand: () => number): DeviceEvent[] {
   const events: DeviceEvent[] = [];

@@ -23,6 +23,7 @@ import { compileGraph, type RuleJson } from "@/lib/rules/compile";
 import { chainEdges, parseRuleGraph, type RuleGraphInput } from "@/lib/rules/graph";
 import { allowServerOnly } from "@/workers/engine-worker";
 import { prng } from "../lib/random/prng";
+import { synthRuleGraph } from "./synthetic-rules";
 
 const SEED = 20241112;
 const SITE = "bench-year";
@@ -57,34 +58,8 @@ add(6, "motion", "solar-motion-light");
 const byKind = (k: DeviceKind) => devs.filter((d) => d.kind === k).map((d) => d.id);
 
 function synthGraph(rand: () => number): RuleGraphInput {
-  const pick = <T>(xs: T[]) => xs[Math.floor(rand() * xs.length)];
-  const int = (lo: number, hi: number) => lo + Math.floor(rand() * (hi - lo + 1));
-  const nodes: RuleGraphInput["nodes"] = [];
-  const edges: RuleGraphInput["edges"] = [];
-  for (let i = 0; i < RULES; i++) {
-    const r = rand();
-    const trigger =
-      r < 0.5 ? { type: "rocker-press", params: { device: pick(byKind("kinetic-rocker")), button: int(1, 4) } }
-      : r < 0.75 ? { type: pick(["light-level-below", "light-level-above"]), params: { device: pick(byKind("light-sensor")), lux: int(1, 40) * 25, hysteresisLux: 20 } }
-      : r < 0.85 ? { type: "temperature-above", params: { device: pick(byKind("climate-sensor")), celsius: int(20, 30), hysteresis: 0.5 } }
-      : r < 0.95 ? { type: "motion-detected", params: { device: pick(byKind("solar-motion-light")) } }
-      : { type: "vacancy", params: { device: pick(byKind("solar-motion-light")), minutes: int(2, 20) } };
-    nodes.push({ id: `t${i}`, kind: "trigger", ...trigger } as RuleGraphInput["nodes"][number]);
-    const gates: string[] = [];
-    for (let g = 0; g < int(0, 2); g++) {
-      const q = rand();
-      const gate =
-        q < 0.4 ? { type: "site-mode-is", params: { modes: [pick(["open", "closed"])] } }
-        : q < 0.7 ? { type: "light-level-below", params: { device: pick(byKind("light-sensor")), lux: int(1, 40) * 25 } }
-        : q < 0.85 ? { type: "zone-occupied", params: { zone: pick(zones) } }
-        : q < 0.95 ? { type: "days-of-week", params: { days: ["mon", "tue", "wed", "thu", "fri"] } }
-        : { type: "time-window", params: { from: { kind: "fixed", time: "07:00" }, to: { kind: "fixed", time: "19:00" } } };
-      nodes.push({ id: `g${i}-${g}`, kind: "gate", ...gate } as RuleGraphInput["nodes"][number]);
-      gates.push(`g${i}-${g}`);
-    }
-    nodes.push({ id: `a${i}`, kind: "action", type: "set-level", params: { target: { zone: pick(zones) }, level: int(0, 10) * 10, fadeMs: 1000 } });
-    edges.push(...chainEdges(`t${i}`, ...gates, `a${i}`));
-  }
+  const site = { rockers: byKind("kinetic-rocker"), luxSensors: byKind("light-sensor"), climateSensors: byKind("climate-sensor"), motionSensors: byKind("solar-motion-light"), occupiedZones: zones, actionZones: zones };
+  const { nodes, edges } = synthRuleGraph(RULES, rand, site, { rocker: 0.5, lux: 0.25, temperature: 0.1, motion: 0.1, vacancy: 0.05 });
   // The site mode follows the clock, as at a real shop.
   nodes.push({ id: "t-open", kind: "trigger", type: "time-of-day", params: { at: { kind: "fixed", time: "09:00" } } }, { id: "a-open", kind: "action", type: "set-site-mode", params: { mode: "open" } });
   nodes.push({ id: "t-close", kind: "trigger", type: "time-of-day", params: { at: { kind: "fixed", time: "18:00" } } }, { id: "a-close", kind: "action", type: "set-site-mode", params: { mode: "closed" } });
