@@ -102,27 +102,14 @@ function exactParts(ms: number, timeZone: string): LocalDateTime {
   };
 }
 
-// Offsets change only on whole minutes, so the wall clock without seconds is the same
-// throughout a UTC minute: remember the last minute asked per zone (a cache).
-const lastMinute = new Map<string, { bucket: number; parts: LocalDateTime }>();
-
-/**
- * localParts with seconds set to 0, computed once per UTC minute and zone: what
- * rules read many times per event. The result is shared, so callers must not change it.
- */
+/** localParts at the start of the UTC minute holding `ms` (seconds 0): the clock rules read. */
 export function localMinuteParts(ms: number, timeZone: string): Readonly<LocalDateTime> {
-  const bucket = Math.floor(ms / MINUTE_MS);
-  const hit = lastMinute.get(timeZone);
-  if (hit && hit.bucket === bucket) return hit.parts;
-  const parts = localParts(bucket * MINUTE_MS, timeZone);
-  lastMinute.set(timeZone, { bucket, parts });
-  return parts;
+  return localParts(Math.floor(ms / MINUTE_MS) * MINUTE_MS, timeZone);
 }
 
 /** Minutes since local midnight (0–1439) at instant `ms`. */
 export function minuteOfDay(ms: number, timeZone: string): number {
-  // The seconds do not count here, so the per-minute cache serves.
-  const p = localMinuteParts(ms, timeZone);
+  const p = localParts(ms, timeZone);
   return p.hour * 60 + p.minute;
 }
 
