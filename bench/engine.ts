@@ -123,7 +123,12 @@ const makers: Record<string, Maker> = {
       for (const key of keysOf(e, s.watches, s.sides)) for (const r of compiled.get(key) ?? []) if (r.gates.every((g) => g())) s.acted += r.actions;
     } };
   },
-  "replay path (closures)": (index, _rules, events) => {
+  "replay path (closures, no trace: Replay's mode)": (index, _rules, events) => {
+    const engine = createReplayEngine({ ...site, rules: index }, { trace: false });
+    const next = streamFor(events);
+    return { step: (n) => void engine.ingest(next(n)) };
+  },
+  "replay path (closures, full trace)": (index, _rules, events) => {
     const engine = createReplayEngine({ ...site, rules: index });
     const next = streamFor(events);
     return { step: (n) => void engine.ingest(next(n)) };

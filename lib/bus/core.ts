@@ -1,6 +1,6 @@
 import type { Facts } from "@/lib/rules/closures";
 import { readFacts, type RuleTrace } from "@/lib/rules/evaluate";
-import type { RuleGroup } from "@/lib/rules/rule-index";
+import type { IndexedRule, RuleGroup } from "@/lib/rules/rule-index";
 import { triggerKey } from "@/lib/rules/trigger-key";
 import { nextOccurrence } from "@/lib/sun/schedule";
 import { applyAction } from "./actions";
@@ -8,7 +8,7 @@ import { deriveFromEvent } from "./derive";
 import { factSource } from "./facts";
 import type { Occurrence, Runtime } from "./runtime";
 import { fireSystemTimer } from "./system-timers";
-import type { DeviceEvent, Step, TraceEntry } from "./types";
+import type { ActionTrace, DeviceEvent, Step, TraceEntry } from "./types";
 
 /**
  * Rules that keep changing the site mode would never stop, and two of them on
@@ -54,6 +54,8 @@ export function createCore(rt: Runtime) {
     rt.state.now = at;
     remember(rt, ev.id);
     const derived = deriveFromEvent(rt, ev, at);
+    for (const occ of derived.occurrences) rt.queue.push(occ);
+    if (!rt.tracing) return;
     const note = derived.note ?? "No rule waits for what this reported.";
     const entry: TraceEntry = { at, origin: ev.id, trigger: { key: null, type: ev.kind, device: ev.device, value: ev.value }, rules: [], actions: [], note };
     if (ev.at < now) {
@@ -63,7 +65,6 @@ export function createCore(rt: Runtime) {
     } else {
       batch = { entry, isMatched: false };
     }
-    rt.queue.push(...derived.occurrences);
   }
 
   function fireTimer(): boolean {
@@ -95,8 +96,17 @@ export function createCore(rt: Runtime) {
         fireSystemTimer(rt, p, origin, at);
         return true;
     }
-    batch = { entry: { at, origin, trigger: { key: rt.queue[0].key, type: rt.queue[0].type, device: rt.queue[0].device, value: null }, rules: [], actions: [], note: "No rule waits for this timer." }, isMatched: false };
+    if (rt.tracing) batch = { entry: { at, origin, trigger: { key: rt.queue[0].key, type: rt.queue[0].type, device: rt.queue[0].device, value: null }, rules: [], actions: [], note: "No rule waits for this timer." }, isMatched: false };
     return true;
+  }
+
+  function run(occ: Occurrence, rule: IndexedRule, entry: TraceEntry | null) {
+    rt.out.fired.push(rule.id);
+    for (const action of rule.params.actions) {
+      const done: ActionTrace = { ruleId: rule.id, actionId: action.nodeId, type: action.type, outcome: applyAction(rt, occ, rule, action) };
+      rt.out.actions.push(done);
+      if (entry) entry.actions.push(done);
+    }
   }
 
   return {
@@ -122,13 +132,14 @@ export function createCore(rt: Runtime) {
           const occ = rt.queue.shift()!;
           if (occ.depth > 0 && (occ.depth > MAX_CASCADE_DEPTH || ++cascaded > MAX_CASCADE_TRIGGERS)) {
             // Cascades queue behind every first-hand trigger, so what is left is all runaway: drop it, say so once.
-            rt.out.trace.push({ at: occ.at, origin: occ.origin, trigger: { key: occ.key, type: occ.type, device: occ.device, value: occ.value }, rules: [], actions: [], note: "Stopped: rules keep changing the site mode in a loop." });
+            if (rt.tracing) rt.out.trace.push({ at: occ.at, origin: occ.origin, trigger: { key: occ.key, type: occ.type, device: occ.device, value: occ.value }, rules: [], actions: [], note: "Stopped: rules keep changing the site mode in a loop." });
             rt.queue.length = 0;
             cascaded = 0;
             continue;
           }
           const group = rt.index.groups.get(occ.key);
           if (!group) continue;
+          rt.out.matched++;
           if (batch) batch.isMatched = true;
           return { occ, group, facts: readFacts(group, factSource(rt, occ.at)) };
         }
@@ -143,16 +154,34 @@ export function createCore(rt: Runtime) {
       }
     },
 
+    /** Applies the actions of the rules that passed, keeping the full trace (every candidate, gate and fact value). */
     finish(pending: Pending, rules: RuleTrace[]): void {
       const { occ, group } = pending;
       const entry: TraceEntry = { at: occ.at, origin: occ.origin, trigger: { key: occ.key, type: occ.type, device: occ.device, value: occ.value }, rules, actions: [] };
       rt.out.trace.push(entry);
-      group.rules.forEach((rule, i) => {
-        if (!rules[i].passed) return;
-        for (const action of rule.params.actions) {
-          entry.actions.push({ ruleId: rule.id, actionId: action.nodeId, type: action.type, outcome: applyAction(rt, occ, rule, action) });
+      const list = group.rules;
+      for (let i = 0; i < list.length; i++) if (rules[i].passed) run(occ, list[i], entry);
+    },
+
+    /**
+     * The same without a trace: each rule's gates are tested on the facts read
+     * before any of the group's actions ran (as finish sees them), so the
+     * outcome is identical; nothing is kept of the rules that failed.
+     */
+    finishUntraced(pending: Pending): void {
+      const { occ, group, facts } = pending;
+      const list = group.rules;
+      for (let i = 0; i < list.length; i++) {
+        const gates = list[i].gates;
+        let passed = true;
+        for (let g = 0; g < gates.length; g++) {
+          if (!gates[g].test(facts)) {
+            passed = false;
+            break;
+          }
         }
-      });
+        if (passed) run(occ, list[i], null);
+      }
     },
 
     end(): Step {
@@ -166,7 +195,7 @@ export function createCore(rt: Runtime) {
 export type Core = ReturnType<typeof createCore>;
 
 export function emptyStep(input: Step["input"]): Step {
-  return { input, at: 0, isDuplicate: false, changes: [], commands: [], notices: [], trace: [] };
+  return { input, at: 0, isDuplicate: false, changes: [], commands: [], notices: [], actions: [], fired: [], matched: 0, trace: [] };
 }
 
 /** Puts a timer on every time-of-day trigger that has none (a fresh engine, or rules changed since the state was saved). */

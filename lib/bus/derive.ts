@@ -37,8 +37,6 @@ export function deriveFromEvent(rt: Runtime, event: DeviceEvent, at: number): De
   const s = rt.state.sensors;
   const id = device.id;
   const occurrences: Occurrence[] = [];
-  const add = (type: string, value: unknown, ...parts: (string | number)[]) =>
-    occurrences.push({ key: triggerKey(type, id, ...parts), type, at, origin: event.id, device: id, value, depth: 0 });
 
   switch (event.kind) {
     case "press":
@@ -49,25 +47,25 @@ export function deriveFromEvent(rt: Runtime, event: DeviceEvent, at: number): De
       const pressKey = `${id}|${button}`;
       if (event.kind === "press") {
         s.pressedAt[pressKey] = at;
-        add("rocker-press", button, button);
-        add("call-button-press", button);
+        occurrences.push(occurrence("rocker-press", button, triggerKey("rocker-press", id, button), at, event.id, id));
+        occurrences.push(occurrence("call-button-press", button, triggerKey("call-button-press", id), at, event.id, id));
       } else if (event.kind === "release") {
         const pressedAt = s.pressedAt[pressKey];
         delete s.pressedAt[pressKey];
-        add("rocker-release", button, button);
+        occurrences.push(occurrence("rocker-release", button, triggerKey("rocker-release", id, button), at, event.id, id));
         // A switch that times its own hold sends "long-press"; one that does not is timed here.
-        if (pressedAt !== undefined && at - pressedAt >= LONG_PRESS_MS) add("rocker-long-press", button, button);
+        if (pressedAt !== undefined && at - pressedAt >= LONG_PRESS_MS) occurrences.push(occurrence("rocker-long-press", button, triggerKey("rocker-long-press", id, button), at, event.id, id));
       } else {
-        add("rocker-long-press", button, button);
+        occurrences.push(occurrence("rocker-long-press", button, triggerKey("rocker-long-press", id, button), at, event.id, id));
       }
       break;
     }
     case "turn":
-      add("door-handle-turn", event.value);
+      occurrences.push(occurrence("door-handle-turn", event.value, triggerKey("door-handle-turn", id), at, event.id, id));
       break;
     case "motion": {
       if (event.value === false || event.value === 0) return none("A no-motion report changes nothing: vacancy is timed from the last motion.");
-      add("motion-detected", true);
+      occurrences.push(occurrence("motion-detected", true, triggerKey("motion-detected", id), at, event.id, id));
       s.occupied[id] = true;
       rt.timers.set(`occupancy|${id}`, at + rt.model.occupancyMs, { kind: "occupancy", device: id });
       for (const w of rt.watchesByDevice.vacancy.get(id) ?? []) {
@@ -94,7 +92,8 @@ export function deriveFromEvent(rt: Runtime, event: DeviceEvent, at: number): De
       const next = isOpen ? "open" : "closed";
       if (s.contacts[id] === next) return none(`Still ${next}; nothing changed.`);
       s.contacts[id] = next;
-      add(isOpen ? "contact-opened" : "contact-closed", next);
+      const type = isOpen ? "contact-opened" : "contact-closed";
+      occurrences.push(occurrence(type, next, triggerKey(type, id), at, event.id, id));
       for (const w of rt.watchesByDevice.leftOpen.get(id) ?? []) {
         if (isOpen) rt.timers.set(`left-open|${w.key}`, at + w.minutes * 60_000, { kind: "left-open", triggerKey: w.key, device: id });
         else rt.timers.cancel(`left-open|${w.key}`);
@@ -105,13 +104,18 @@ export function deriveFromEvent(rt: Runtime, event: DeviceEvent, at: number): De
       const isActive = event.value === true || event.value === "active" || event.value === 1;
       if (s.fireAlarms[id] === isActive) return none(`The fire-alarm input is still ${isActive ? "active" : "clear"}.`);
       s.fireAlarms[id] = isActive;
-      add(isActive ? "fire-alarm-active" : "fire-alarm-cleared", isActive);
+      const type = isActive ? "fire-alarm-active" : "fire-alarm-cleared";
+      occurrences.push(occurrence(type, isActive, triggerKey(type, id), at, event.id, id));
       break;
     }
     default:
       return none(`"${event.kind}" reports are not handled by the engine; ignored.`);
   }
   return { occurrences, note: occurrences.length === 0 ? "Reading stored; no watched threshold was crossed." : null };
+}
+
+function occurrence(type: string, value: unknown, key: string, at: number, origin: string, device: string): Occurrence {
+  return { key, type, at, origin, device, value, depth: 0 };
 }
 
 function none(note: string): Derived {

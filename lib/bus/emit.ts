@@ -17,16 +17,20 @@ export type Addressed = { deviceId: string; to: number; isChanged: boolean };
  * own unicast message. Nothing is sent when nothing changes.
  */
 export function planLevelCommands(rt: Runtime, addressed: Addressed[], message: LevelMessage, cause: Cause, at: number): void {
+  if (addressed.length === 0) return;
   const byZone = new Map<string | null, Addressed[]>();
   for (const a of addressed) {
     const zoneId = rt.model.devices.get(a.deviceId)?.zoneId ?? null;
-    const list = byZone.get(zoneId) ?? [];
-    list.push(a);
-    byZone.set(zoneId, list);
+    const list = byZone.get(zoneId);
+    if (list) list.push(a);
+    else byZone.set(zoneId, [a]);
   }
-  for (const zoneId of [...rt.model.zoneOrder, null]) {
-    const inZone = byZone.get(zoneId);
-    if (!inZone || !inZone.some((a) => a.isChanged)) continue;
+  // Zones in site order, luminaires without a zone last (usually one zone: nothing to sort).
+  const zoneIds = [...byZone.keys()];
+  if (zoneIds.length > 1) zoneIds.sort((a, b) => zoneRank(rt, a) - zoneRank(rt, b));
+  for (const zoneId of zoneIds) {
+    const inZone = byZone.get(zoneId)!;
+    if (!inZone.some((a) => a.isChanged)) continue;
     const group = zoneId === null ? null : rt.model.zones.get(zoneId)?.groupAddress ?? null;
     const members = zoneId === null ? [] : rt.model.luminairesByZone.get(zoneId) ?? [];
     const isWholeZone =
@@ -43,6 +47,11 @@ export function planLevelCommands(rt: Runtime, addressed: Addressed[], message: 
       }
     }
   }
+}
+
+function zoneRank(rt: Runtime, zoneId: string | null): number {
+  const i = zoneId === null ? -1 : rt.model.zoneOrder.indexOf(zoneId);
+  return i < 0 ? Number.MAX_SAFE_INTEGER : i;
 }
 
 function sendLevel(rt: Runtime, destination: number, addressing: "group" | "unicast", message: LevelMessage, level: number, devices: string[], cause: Cause, at: number) {

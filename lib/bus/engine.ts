@@ -1,7 +1,6 @@
-import type { Facts } from "@/lib/rules/closures";
 import type { RuleJson } from "@/lib/rules/compile";
-import { evaluateWithClosures, evaluateWithRulesEngine, type RuleTrace } from "@/lib/rules/evaluate";
-import { buildRuleIndex, type RuleGroup, type RuleIndex } from "@/lib/rules/rule-index";
+import { evaluateWithClosures, evaluateWithRulesEngine } from "@/lib/rules/evaluate";
+import { buildRuleIndex, type RuleIndex } from "@/lib/rules/rule-index";
 import { createCore, emptyStep, scheduleMissing } from "./core";
 import { groupByDevice, type Runtime } from "./runtime";
 import { buildSiteModel, type SiteInput } from "./site-model";
@@ -52,13 +51,21 @@ export function createEngine(options: EngineOptions): Engine {
   };
 }
 
-export function createReplayEngine(options: EngineOptions, evaluate: (group: RuleGroup, facts: Facts) => RuleTrace[] = evaluateWithClosures): ReplayEngine {
-  const rt = createRuntime(options);
+/**
+ * `trace: false` is a replay's fast mode: the same state, changes, commands,
+ * notices, actions and fired rules, but no trace entries (candidate rules,
+ * gates, fact values, notes) — a trace is most of a step's cost. The engine is
+ * deterministic, so a replay that needs one step's trace runs again from a
+ * saved state with the trace on (lib/replay/run.ts) and gets exactly that step.
+ */
+export function createReplayEngine(options: EngineOptions, { trace = true }: { trace?: boolean } = {}): ReplayEngine {
+  const rt = createRuntime(options, trace);
   const core = createCore(rt);
   const run = (input: Parameters<typeof core.begin>[0]) => {
     const duplicate = core.begin(input);
     if (duplicate) return duplicate;
-    for (let p = core.next(); p; p = core.next()) core.finish(p, evaluate(p.group, p.facts));
+    if (trace) for (let p = core.next(); p; p = core.next()) core.finish(p, evaluateWithClosures(p.group, p.facts));
+    else for (let p = core.next(); p; p = core.next()) core.finishUntraced(p);
     return core.end();
   };
   return {
@@ -68,7 +75,7 @@ export function createReplayEngine(options: EngineOptions, evaluate: (group: Rul
   };
 }
 
-function createRuntime(options: EngineOptions): Runtime {
+function createRuntime(options: EngineOptions, tracing = true): Runtime {
   const model = buildSiteModel(options);
   const index = Array.isArray(options.rules) ? buildRuleIndex(options.rules) : options.rules;
   const state = options.state ? structuredClone(options.state) : initialState(options.site.initialMode ?? "open");
@@ -86,6 +93,7 @@ function createRuntime(options: EngineOptions): Runtime {
     },
     queue: [],
     out: emptyStep({ advanceTo: 0 }),
+    tracing,
   };
   // A saved state may predate this rule version: drop clock timers no rule waits for, add the missing ones.
   const wanted = new Set(index.watches.schedules.map((w) => `schedule|${w.key}`));

@@ -30,6 +30,8 @@ export type Runtime = {
   };
   queue: Occurrence[];
   out: Step;
+  /** Whether steps keep their full trace (candidate rules, gates, fact values, notes). */
+  tracing: boolean;
 };
 
 /**

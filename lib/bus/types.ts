@@ -105,5 +105,12 @@ export type Step = {
   changes: StateChange[];
   commands: GatewayCommand[];
   notices: Notice[];
+  /** Every action carried out, by rules or by the engine's own timers, in order (the trace holds them too, when it is kept). */
+  actions: ActionTrace[];
+  /** Ids of the rules that passed, in the order they ran. */
+  fired: string[];
+  /** Triggers in this step that had candidate rules (0: no rule waited for anything it caused). */
+  matched: number;
+  /** Empty when the engine runs without a trace (a replay's fast mode; see createReplayEngine). */
   trace: TraceEntry[];
 };
