@@ -5,7 +5,7 @@
  *     seeded year of about a million events, stored in a throwaway SQLite file;
  *   - baseline: reads every row back in time order through the libSQL client in
  *     keyset pages of 2,000 on (site, at, seq) — the raw rate, touching each value;
- *   - Replay: the same window through `replayLog` (db/queries/replays.ts: the
+ *   - Replay: the same window through `replayLog` (db/queries/replay-log.ts: the
  *     worker's code path — pages, JSON values, the replay engine, timeline,
  *     series), events/s and its ratio to the raw rate; then a Compare (two rule
  *     sets at once) the same way;
@@ -88,6 +88,21 @@ function* yearOfEvents(rand: () => number): Generator<[string, number, string, s
   }
 }
 
+async function startProfile() {
+  const { Session } = await import("node:inspector/promises");
+  const session = new Session();
+  session.connect();
+  await session.post("Profiler.enable");
+  await session.post("Profiler.start");
+  return {
+    async stop(file: string) {
+      const { profile } = await session.post("Profiler.stop");
+      (await import("node:fs")).writeFileSync(file, JSON.stringify(profile));
+      session.disconnect();
+    },
+  };
+}
+
 const mib = (b: number) => (b / 1024 / 1024).toFixed(0);
 const fmt = (n: number) => Math.round(n).toLocaleString("en-GB");
 
@@ -96,7 +111,8 @@ async function main() {
   const { getDb } = await import("@/db");
   const { migrateDatabase } = await import("@/db/migrate");
   const schema = await import("@/db/schema");
-  const { replayLog, resolveRuleSet } = await import("@/db/queries/replays");
+  const { resolveRuleSet } = await import("@/db/queries/replays");
+  const { replayLog } = await import("@/db/queries/replay-log");
   const db = getDb();
   await migrateDatabase(db);
   const client = db.$client;
@@ -196,7 +212,15 @@ async function main() {
     return result!;
   };
   console.log("");
+  // BENCH_PROFILE=file.cpuprofile: a CPU profile of B alone (open it in a browser's devtools).
+  const profile = process.env.BENCH_PROFILE ? await startProfile() : null;
   await measure("B. Replay, 200 rules (replayLog: pages + engine + timeline + series)", [active]);
+  if (profile) await profile.stop(process.env.BENCH_PROFILE!);
+  if (process.env.BENCH_ONLY === "B") {
+    clearInterval(sampler);
+    client.close();
+    return;
+  }
   const cmp = await measure("C. Compare, 200 rules vs another 200", [active, other]);
   clearInterval(sampler);
   console.log(`   Compare found ${fmt(cmp.compare!.root)} steps deciding differently, ${fmt(cmp.compare!.knockOn)} following from them.`);

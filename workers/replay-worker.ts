@@ -15,6 +15,7 @@
  *
  * DATABASE_URL (and DATABASE_AUTH_TOKEN) come from lib/env.ts.
  */
+import type * as ReplayLog from "@/db/queries/replay-log";
 import type * as ReplayQueries from "@/db/queries/replays";
 import type { StoredReplayParams } from "@/db/queries/replays";
 import { isEntryModule, makeOwnerId, runWorkerMain, workerLog } from "./entry";
@@ -28,12 +29,15 @@ const consoleLog: WorkerLog = workerLog("replay worker");
 
 let queries: Promise<typeof ReplayQueries> | undefined;
 const replays = () => (queries ??= import("@/db/queries/replays"));
+let logQueries: Promise<typeof ReplayLog> | undefined;
+const replayLogQueries = () => (logQueries ??= import("@/db/queries/replay-log"));
 
 export type RunOnceResult = { jobId: string; status: "done" | "failed" | "cancelled" | "lost"; processed: number } | null;
 
 /** Claims one job and runs it to the end (or to a cancel); null when none was waiting. */
 export async function runReplayJobOnce({ owner, leaseMs = REPLAY_LEASE_MS, clock = Date.now, log = consoleLog, pageSize, signal }: { owner: string; leaseMs?: number; clock?: () => number; log?: WorkerLog; pageSize?: number; signal?: AbortSignal }): Promise<RunOnceResult> {
-  const { claimReplayJob, reportReplayProgress, finishReplayJob, replayLog } = await replays();
+  const { claimReplayJob, reportReplayProgress, finishReplayJob } = await replays();
+  const { replayLog } = await replayLogQueries();
   const job = await claimReplayJob({ owner, now: clock(), leaseMs });
   if (!job) return null;
   const params = job.params as StoredReplayParams;

@@ -2,15 +2,12 @@ import { and, desc, eq, lt, or, sql } from "drizzle-orm";
 import { randomUUID } from "node:crypto";
 import { getDb } from "@/db";
 import { replayJobs, ruleSets, ruleSetVersions, type ReplayJob } from "@/db/schema";
-import type { Step } from "@/lib/bus/types";
 import { AppError } from "@/lib/errors";
 import { compileGraph, type RuleJson } from "@/lib/rules/compile";
 import { ruleGraphSchema } from "@/lib/rules/graph";
-import { createReplay } from "@/lib/replay/run";
-import type { ReplayResult, StepInput } from "@/lib/replay/types";
+import type { ReplayResult } from "@/lib/replay/types";
 import type { ReplayRequest, RuleSetChoice } from "@/lib/validation/events";
-import { countEvents, readLogPages } from "./events";
-import { loadEngineInput } from "./live";
+import { countEvents } from "./events";
 import { getRuleSet, validateDraftGraph } from "./rule-sets";
 
 /** A rule set resolved when the job is made: a later draft save or activation does not change a queued job. */
@@ -148,34 +145,4 @@ export async function finishReplayJob({ jobId, owner, status, processed, result 
     .where(and(eq(replayJobs.id, jobId), eq(replayJobs.leaseOwner, owner), eq(replayJobs.status, "running")))
     .returning({ id: replayJobs.id });
   return rows.length > 0;
-}
-
-export type ReplayLogOptions = {
-  siteId: string;
-  params: StoredReplayParams;
-  pageSize?: number;
-  /** Called after each page; return false to stop (cancel or lost lease). */
-  onPage?: (processed: number) => Promise<boolean>;
-  onStep?: (run: number, input: StepInput, step: Step) => void;
-};
-
-/**
- * Runs a window of the stored log through the job's rule set(s): keyset pages
- * on (site, at) in time order, one page in memory at a time. Returns null when
- * stopped early.
- */
-export async function replayLog({ siteId, params, pageSize = 2000, onPage, onStep }: ReplayLogOptions): Promise<ReplayResult | null> {
-  const loaded = await loadEngineInput(siteId);
-  const replay = createReplay({
-    input: loaded.input,
-    runs: params.runs.map((r) => ({ label: r.label, rules: r.rules })),
-    window: { from: params.from, to: params.to },
-    filter: params.filter,
-    onStep,
-  });
-  for await (const page of readLogPages({ siteId, from: params.from, to: params.to, pageSize })) {
-    for (const e of page) replay.feed(e);
-    if (onPage && !(await onPage(replay.processed))) return null;
-  }
-  return replay.finish();
 }

@@ -1,4 +1,4 @@
-import type { Step, TraceEntry } from "@/lib/bus/types";
+import type { Step } from "@/lib/bus/types";
 
 /** Device and zone names for sentences; ids stand in for names not known. */
 export type Names = { device: (id: string) => string };
@@ -12,7 +12,7 @@ export type Names = { device: (id: string) => string };
  */
 export function effectsOf(step: Step, names: Names): string[] {
   const out: string[] = [];
-  for (const entry of step.trace) for (const a of entry.actions) out.push(`Action ${a.actionId ?? a.type}: ${a.outcome}`);
+  for (const a of step.actions) out.push(`Action ${a.actionId ?? a.type}: ${a.outcome}`);
   for (const c of step.changes) {
     switch (c.kind) {
       case "level":
@@ -34,22 +34,36 @@ export function effectsOf(step: Step, names: Names): string[] {
 }
 
 export function hasEffects(step: Step): boolean {
-  if (step.changes.length || step.notices.length) return true;
-  for (const e of step.trace) if (e.actions.length) return true;
-  return false;
+  return step.changes.length > 0 || step.notices.length > 0 || step.actions.length > 0;
 }
 
-/** Rules that passed in this step, in the order they ran. */
-export function firedRules(trace: TraceEntry[]): string[] {
-  const out: string[] = [];
-  for (const e of trace) for (const r of e.rules) if (r.passed) out.push(r.ruleId);
-  return out;
-}
-
-export function countFired(trace: TraceEntry[]): number {
-  let n = 0;
-  for (const e of trace) for (const r of e.rules) if (r.passed) n++;
-  return n;
+/**
+ * Whether two steps did the same, item by item and in order: what effectsOf
+ * would say of both is then the same, without building a sentence. The common
+ * case of a Compare (two rule sets mostly agree), so it is asked first.
+ */
+export function isSameOutcome(a: Step, b: Step): boolean {
+  if (a.actions.length !== b.actions.length || a.changes.length !== b.changes.length || a.notices.length !== b.notices.length) return false;
+  for (let i = 0; i < a.actions.length; i++) {
+    const x = a.actions[i];
+    const y = b.actions[i];
+    if (x.actionId !== y.actionId || x.type !== y.type || x.outcome !== y.outcome) return false;
+  }
+  for (let i = 0; i < a.changes.length; i++) {
+    const x = a.changes[i];
+    const y = b.changes[i];
+    if (x.kind !== y.kind) return false;
+    if (x.kind === "level" && y.kind === "level" && (x.deviceId !== y.deviceId || x.from !== y.from || x.to !== y.to)) return false;
+    if (x.kind === "relay" && y.kind === "relay" && (x.deviceId !== y.deviceId || x.isOn !== y.isOn)) return false;
+    if (x.kind === "mode" && y.kind === "mode" && (x.from !== y.from || x.to !== y.to)) return false;
+    if (x.kind === "emergency" && y.kind === "emergency" && (x.isActive !== y.isActive || x.scene !== y.scene)) return false;
+  }
+  for (let i = 0; i < a.notices.length; i++) {
+    const x = a.notices[i];
+    const y = b.notices[i];
+    if (x.recipient !== y.recipient || x.text !== y.text || x.channels.join() !== y.channels.join()) return false;
+  }
+  return true;
 }
 
 /** Items in `a` and not in `b`, counting repeats (a multiset difference), in `a`'s order. */

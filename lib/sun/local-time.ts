@@ -48,8 +48,27 @@ export function isValidTimeZone(timeZone: string): boolean {
 // long stretches, so remember it per zone and 15-minute span of UTC (every real
 // transition of recent decades falls on a quarter hour). A span whose two ends
 // disagree holds a transition: those instants are read exactly. (A cache, bounded.)
+// Spans are looked up through 6-hour blocks: a block whose two ends agree holds
+// no transition (real zones change months apart), so all its spans share the
+// offset and a log read in time order costs two Intl readings per block.
 const SPAN_MS = 15 * MINUTE_MS;
+const BLOCK_MS = 6 * 60 * MINUTE_MS;
 const spanOffsets = new Map<string, Map<number, number | null>>();
+const blockOffsets = new Map<string, Map<number, number | null>>();
+
+function blockOffset(ms: number, timeZone: string): number | null {
+  let zone = blockOffsets.get(timeZone);
+  if (!zone) blockOffsets.set(timeZone, (zone = new Map()));
+  const block = Math.floor(ms / BLOCK_MS);
+  let offset = zone.get(block);
+  if (offset === undefined) {
+    const start = offsetAt(block * BLOCK_MS, timeZone);
+    offset = start === offsetAt((block + 1) * BLOCK_MS - 1, timeZone) && start % MINUTE_MS === 0 ? start : null;
+    if (zone.size >= 20_000) zone.clear();
+    zone.set(block, offset);
+  }
+  return offset;
+}
 
 function offsetAt(ms: number, timeZone: string): number {
   const p = exactParts(ms, timeZone);
@@ -57,6 +76,8 @@ function offsetAt(ms: number, timeZone: string): number {
 }
 
 function spanOffset(ms: number, timeZone: string): number | null {
+  const whole = blockOffset(ms, timeZone);
+  if (whole !== null) return whole;
   let zone = spanOffsets.get(timeZone);
   if (!zone) spanOffsets.set(timeZone, (zone = new Map()));
   const span = Math.floor(ms / SPAN_MS);

@@ -28,6 +28,34 @@ function replay(runs: { label: string; rules: ReturnType<typeof compileGraph> }[
 }
 
 describe("replay of a window", () => {
+  it("runs without a trace and fills in the traces it keeps by running segments again: the same result as tracing every step", () => {
+    const longer = (segment?: number, traced = false) => {
+      const r = createReplay({ input, runs: [{ label: "A", rules: active }, { label: "B", rules: fixedGraph() }], window: NIGHT_WINDOW, segment, onStep: traced ? () => undefined : undefined });
+      for (const e of demoNightLog()) r.feed(e);
+      return r.finish();
+    };
+    const traced = JSON.stringify(longer(undefined, true));
+    for (const segment of [1, 2, 3, 7, 10_000]) expect(JSON.stringify(longer(segment)), `segment ${segment}`).toBe(traced);
+    // Not vacuous: there are traces to fill in, on the timeline and on the differences.
+    const result = longer(3);
+    expect(result.runs[0].timeline.filter((t) => t.trace.some((e) => e.rules.length > 0)).length).toBeGreaterThan(3);
+    expect(result.compare!.differences.length).toBeGreaterThan(0);
+    expect(result.compare!.differences.every((d) => d.traceA.length > 0 && d.traceB.length > 0)).toBe(true);
+  });
+
+  it("the same past the timeline's cap, where it stops saving states", () => {
+    // 3,000 presses of the shop and flat rockers through a night: more matched steps than the timeline keeps.
+    const presses = Array.from({ length: 3000 }, (_, i) => ({ id: `p${i}`, siteId: "larch-lane", at: NIGHT_WINDOW.from + 1000 + i * 7_000, device: i % 3 ? "larch-lane-dev-rocker-shop-door" : "larch-lane-dev-rocker-flat", kind: "press", value: 1 + (i % 2) }));
+    const go = (segment?: number, traced = false) => {
+      const r = createReplay({ input, runs: [{ label: "A", rules: active }], window: NIGHT_WINDOW, segment, onStep: traced ? () => undefined : undefined });
+      for (const e of presses) r.feed(e);
+      return r.finish();
+    };
+    const traced = go(undefined, true);
+    expect(traced.runs[0].isTimelineCut).toBe(true);
+    expect(JSON.stringify(go(500))).toBe(JSON.stringify(traced));
+  });
+
   it("gives the same steps as the replay engine driven by hand (same input, same output)", () => {
     const steps: unknown[] = [];
     const r = createReplay({ input, runs: [{ label: "A", rules: active }], window: NIGHT_WINDOW, onStep: (_, __, step) => steps.push(step) });

@@ -1,0 +1,82 @@
+/**
+ * A worker thread that reads a window of a site's Event log in time order and
+ * hands it to the thread that started it, a page at a time, while that thread
+ * runs the previous pages through the engine (db/queries/replay-log.ts). Plain
+ * JavaScript so it starts the same under tsx, vitest and node.
+ *
+ * Pages go over as columns: event ids and values as arrays, times as a
+ * Float64Array, devices and kinds as indexes into lists that grow as new names
+ * appear (a site has a few dozen devices: each name crosses once, and the other
+ * side gets one string per device instead of one per event). At most `ahead`
+ * pages are in flight; the reader waits for a "more" before reading further, so
+ * memory stays flat however long the window.
+ */
+import { parentPort, workerData } from "node:worker_threads";
+import { createClient } from "@libsql/client";
+
+const { url, authToken, siteId, from, to, pageSize, ahead } = workerData;
+const client = createClient({ url, authToken });
+const deviceIndex = new Map();
+const kindIndex = new Map();
+
+let credit = ahead;
+let wake = null;
+parentPort.on("message", (message) => {
+  if (message === "more") {
+    credit++;
+    if (wake) {
+      const resolve = wake;
+      wake = null;
+      resolve();
+    }
+  }
+});
+
+function indexOf(map, fresh, name) {
+  let i = map.get(name);
+  if (i === undefined) {
+    i = map.size;
+    map.set(name, i);
+    fresh.push(name);
+  }
+  return i;
+}
+
+async function main() {
+  let at = from;
+  let seq = -1;
+  for (;;) {
+    const rs = await client.execute({
+      sql: "SELECT seq, event_id, at, device, kind, value FROM events WHERE site_id = ? AND at >= ? AND (at > ? OR seq > ?) AND at < ? ORDER BY at, seq LIMIT ?",
+      args: [siteId, at, at, seq, to, pageSize],
+    });
+    const n = rs.rows.length;
+    if (n === 0) break;
+    const ids = new Array(n);
+    const times = new Float64Array(n);
+    const devices = new Uint32Array(n);
+    const kinds = new Uint32Array(n);
+    const values = new Array(n);
+    const newDevices = [];
+    const newKinds = [];
+    for (let i = 0; i < n; i++) {
+      const r = rs.rows[i];
+      ids[i] = r[1];
+      times[i] = Number(r[2]);
+      devices[i] = indexOf(deviceIndex, newDevices, r[3]);
+      kinds[i] = indexOf(kindIndex, newKinds, r[4]);
+      values[i] = r[5] === null ? null : JSON.parse(r[5]);
+    }
+    at = times[n - 1];
+    seq = Number(rs.rows[n - 1][0]);
+    while (credit <= 0) await new Promise((resolve) => (wake = resolve));
+    credit--;
+    parentPort.postMessage({ kind: "page", ids, times, devices, kinds, values, newDevices, newKinds }, [times.buffer, devices.buffer, kinds.buffer]);
+    if (n < pageSize) break;
+  }
+  parentPort.postMessage({ kind: "end" });
+}
+
+main()
+  .catch((error) => parentPort.postMessage({ kind: "error", message: error instanceof Error ? error.message : String(error) }))
+  .finally(() => client.close());
