@@ -1,14 +1,32 @@
 import { and, asc, eq, gt, inArray, isNull, lt, lte, or } from "drizzle-orm";
 import { getDb } from "@/db";
 import { serialisedWrite } from "@/db/write-lock";
-import { devices, engineStates, engineSteps, events, gatewayCommands, noticesOutbox, ruleSets, ruleSetVersions, scenes, sites, zones } from "@/db/schema";
-import { createEngine, type Engine } from "@/lib/bus/engine";
+import { devices, engineStates, engineSteps, gatewayCommands, noticesOutbox, ruleSets, ruleSetVersions, scenes, sites, zones } from "@/db/schema";
+import type { InValue, Transaction as LibsqlTransaction } from "@libsql/client";
+import { createReplayEngine, type ReplayEngine } from "@/lib/bus/engine";
 import { toSiteInput } from "@/lib/bus/site-input";
-import type { DeviceEvent, EngineState, GatewayCommand, Notice, Step } from "@/lib/bus/types";
+import type { SiteInput } from "@/lib/bus/site-model";
+import type { DeviceEvent, EngineState, GatewayCommand, Notice, SceneConfig, Step } from "@/lib/bus/types";
+import type { DeviceKind } from "@/lib/catalogue/device-kinds";
+import { buildRuleIndex, type RuleIndex } from "@/lib/rules/rule-index";
 import type { RuleJson } from "@/lib/rules/compile";
 import { AppError } from "@/lib/errors";
 
 type Tx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
+
+/**
+ * The libSQL transaction under a Drizzle transaction, for the hot multi-row
+ * INSERTs in plain SQL. It must be this one — the same connection and the same
+ * BEGIN IMMEDIATE — or a failure part-way would leave rows behind (a second
+ * connection would not even get the write lock). Drizzle keeps it on the
+ * transaction's session (`LibSQLSession.tx`, drizzle-orm/libsql/session.js);
+ * that is not public API, so an upgrade that moves it fails here, loudly.
+ */
+function rawTx(tx: Tx): LibsqlTransaction {
+  const raw = (tx as unknown as { session?: { tx?: Partial<LibsqlTransaction> } }).session?.tx;
+  if (!raw || typeof raw.execute !== "function" || typeof raw.commit !== "function") throw new Error("drizzle-orm/libsql no longer keeps its libSQL transaction at tx.session.tx: see rawTx in db/queries/live.ts.");
+  return raw as LibsqlTransaction;
+}
 
 /** The site as the engine sees it, and the active version's rules (none active: no rules). */
 export async function loadEngineInput(siteId: string) {
@@ -16,15 +34,61 @@ export async function loadEngineInput(siteId: string) {
   const [site] = await db.select().from(sites).where(eq(sites.id, siteId));
   if (!site) throw new AppError("not_found", "No such site.");
   const [deviceRows, zoneRows, sceneRows, [ruleSet]] = await Promise.all([
-    db.select().from(devices).where(eq(devices.siteId, siteId)),
-    db.select().from(zones).where(eq(zones.siteId, siteId)),
-    db.select().from(scenes).where(eq(scenes.siteId, siteId)),
+    // Explicit orders (the ones the unique indexes gave before): the engine keeps the order it is given (lib/bus/site-model.ts).
+    db.select().from(devices).where(eq(devices.siteId, siteId)).orderBy(asc(devices.unicastAddress)),
+    db.select().from(zones).where(eq(zones.siteId, siteId)).orderBy(asc(zones.name)),
+    db.select().from(scenes).where(eq(scenes.siteId, siteId)).orderBy(asc(scenes.name)),
     db.select().from(ruleSets).where(eq(ruleSets.siteId, siteId)),
   ]);
   // Only the compiled rules: the version's graph is for the Canvas, not the engine.
   const [version] = ruleSet?.activeVersionId ? await db.select({ id: ruleSetVersions.id, rules: ruleSetVersions.rules }).from(ruleSetVersions).where(eq(ruleSetVersions.id, ruleSet.activeVersionId)) : [];
   const input = toSiteInput({ site, devices: deviceRows, zones: zoneRows, scenes: sceneRows.map((s) => ({ number: s.number, name: s.name, fadeMs: s.fadeMs, levels: s.levels })) });
   return { input, rules: (version?.rules ?? []) as RuleJson[], versionId: version?.id ?? null, devices: deviceRows };
+}
+
+type LiveInput = { input: SiteInput; rules: RuleIndex; versionId: string | null };
+type LiveInputCacheEntry = LiveInput & { texts: unknown[] };
+
+/** Built inputs per site, reused only while every text they were built from reads back identical. */
+const liveInputs = new Map<string, LiveInputCacheEntry>();
+const LIVE_INPUT_SITES = 32;
+
+/**
+ * What `loadEngineInput` reads (same columns, same order), in one statement on
+ * the write transaction, as raw JSON text. Parsing it and indexing the rules is
+ * what costs, so the built input is kept and reused while the texts read back
+ * byte-identical: a change to the site, a device, zone, scene or the active
+ * version shows up in them, and there is nothing else to invalidate.
+ * `tests/integration/ingest-atomic.test.ts` checks it equals loadEngineInput's.
+ */
+async function loadLiveInput(raw: LibsqlTransaction, siteId: string): Promise<LiveInput> {
+  const rs = await raw.execute({
+    sql: `select s.time_zone, s.latitude, s.longitude,
+      (select json_group_array(json_array(d.id, d.kind, d.zone_id, d.unicast_address, d.name) order by d.unicast_address) from devices d where d.site_id = s.id),
+      (select json_group_array(json_array(z.id, z.group_address, z.name) order by z.name) from zones z where z.site_id = s.id),
+      (select json_group_array(json_array(c.number, c.name, c.fade_ms, json(c.levels)) order by c.name) from scenes c where c.site_id = s.id),
+      v.id, v.rules
+      from sites s left join rule_sets r on r.site_id = s.id left join rule_set_versions v on v.id = r.active_version_id
+      where s.id = ?`,
+    args: [siteId],
+  });
+  const row = rs.rows[0];
+  if (!row) throw new AppError("not_found", "No such site.");
+  const texts = Array.from({ length: 8 }, (_, i) => row[i]);
+  const cached = liveInputs.get(siteId);
+  if (cached && cached.texts.every((t, i) => t === texts[i])) return cached;
+  const [timeZone, latitude, longitude, deviceJson, zoneJson, sceneJson, versionId, rulesJson] = texts as [string, number, number, string, string, string, string | null, string | null];
+  const input = toSiteInput({
+    site: { timeZone, latitude, longitude },
+    devices: (JSON.parse(deviceJson) as [string, DeviceKind, string | null, number, string][]).map(([id, kind, zoneId, unicastAddress, name]) => ({ id, kind, zoneId, unicastAddress, name })),
+    zones: (JSON.parse(zoneJson) as [string, number, string][]).map(([id, groupAddress, name]) => ({ id, groupAddress, name })),
+    scenes: (JSON.parse(sceneJson) as [number, string, number, SceneConfig["levels"]][]).map(([number, name, fadeMs, levels]) => ({ number, name, fadeMs, levels })),
+  });
+  const entry = { input, rules: buildRuleIndex(rulesJson === null ? [] : (JSON.parse(rulesJson) as RuleJson[])), versionId, texts };
+  liveInputs.delete(siteId);
+  liveInputs.set(siteId, entry);
+  if (liveInputs.size > LIVE_INPUT_SITES) liveInputs.delete(liveInputs.keys().next().value!);
+  return entry;
 }
 
 /** An outbox row for one notice; a click on it opens the site's overview. */
@@ -64,27 +128,47 @@ async function storeStep(tx: Tx, siteId: string, step: Step, eventSeq: number | 
  * mid-way loses nothing and applies nothing twice. Writers are serialised by the
  * database's write lock; the revision check guards against a stale read anyway.
  */
-async function withLiveEngine<T>(siteId: string, work: (engine: Engine, tx: Tx, versionId: string | null) => Promise<T>): Promise<T> {
+async function withLiveEngine<T>(siteId: string, work: (engine: LiveEngine, tx: Tx, versionId: string | null) => Promise<T>): Promise<T> {
   return serialisedWrite(() => runLive(siteId, work));
 }
 
-async function runLive<T>(siteId: string, work: (engine: Engine, tx: Tx, versionId: string | null) => Promise<T>): Promise<T> {
-  const loaded = await loadEngineInput(siteId);
+/**
+ * The live store runs the engine with the rules compiled to closures
+ * (`createReplayEngine`, with its trace): the same loop as `createEngine`,
+ * synchronous, and `tests/unit/engine-differential.test.ts` holds the two
+ * evaluators to identical steps on recorded and random streams. The rule JSON
+ * stays the stored and reference form, and the Test bench still runs it through
+ * json-rules-engine (`createEngine`); here that evaluator was a third of a
+ * 500-event batch (bench/ingest.ts).
+ */
+type LiveEngine = ReplayEngine;
+
+/** The site's input and its engine state, read on the write transaction; `createLiveEngine` builds the engine from them. */
+export async function openLive(tx: Tx, siteId: string) {
+  const raw = rawTx(tx);
+  const loaded = await loadLiveInput(raw, siteId);
+  const rs = await raw.execute({ sql: "select state, revision from engine_states where site_id = ?", args: [siteId] });
+  const row = rs.rows[0] ? { state: JSON.parse(rs.rows[0][0] as string) as EngineState, revision: Number(rs.rows[0][1]) } : null;
+  return { ...loaded, row };
+}
+
+export function createLiveEngine(opened: Awaited<ReturnType<typeof openLive>>): LiveEngine {
+  return createReplayEngine({ ...opened.input, rules: opened.rules, state: opened.row?.state });
+}
+
+async function runLive<T>(siteId: string, work: (engine: LiveEngine, tx: Tx, versionId: string | null) => Promise<T>): Promise<T> {
   return getDb().transaction(async (tx) => {
-    const [row] = await tx.select().from(engineStates).where(eq(engineStates.siteId, siteId));
-    const engine = createEngine({ ...loaded.input, rules: loaded.rules, state: (row?.state as EngineState | undefined) ?? undefined });
-    const result = await work(engine, tx, loaded.versionId);
+    const opened = await openLive(tx, siteId);
+    const engine = createLiveEngine(opened);
+    const result = await work(engine, tx, opened.versionId);
     const state = engine.getState();
-    const values = { state, versionId: loaded.versionId, nextTimerAt: nextDue(state), updatedAt: Date.now() };
+    const { row } = opened;
+    const values = [JSON.stringify(state), opened.versionId, nextDue(state), Date.now(), (row?.revision ?? 0) + 1, siteId];
     if (row) {
-      const updated = await tx
-        .update(engineStates)
-        .set({ ...values, revision: row.revision + 1 })
-        .where(and(eq(engineStates.siteId, siteId), eq(engineStates.revision, row.revision)))
-        .returning({ siteId: engineStates.siteId });
-      if (!updated.length) throw new AppError("conflict", "The site's state changed while this ran; try again.");
+      const updated = await rawTx(tx).execute({ sql: "update engine_states set state = ?, version_id = ?, next_timer_at = ?, updated_at = ?, revision = ? where site_id = ? and revision = ?", args: [...values, row.revision] });
+      if (!updated.rowsAffected) throw new AppError("conflict", "The site's state changed while this ran; try again.");
     } else {
-      await tx.insert(engineStates).values({ siteId, ...values, revision: 1 });
+      await rawTx(tx).execute({ sql: "insert into engine_states (state, version_id, next_timer_at, updated_at, revision, site_id) values (?, ?, ?, ?, ?, ?)", args: values });
     }
     return result;
   });
@@ -92,70 +176,113 @@ async function runLive<T>(siteId: string, work: (engine: Engine, tx: Tx, version
 
 export type IngestResult = { accepted: { id: string; stepSeq: number }[]; duplicates: string[]; commands: (GatewayCommand & { seq: number })[] };
 
-/** Rows per multi-row INSERT: well under SQLite's 32,766 bound variables for the widest table. */
-const CHUNK = 200;
+/** Bound parameters per statement: SQLite allows 32,766. */
+const MAX_ARGS = 32_000;
+/** Notices per Drizzle INSERT (12 columns): well under that. */
+const NOTICE_CHUNK = 200;
 
-async function insertChunked<T, R>(rows: T[], insert: (chunk: T[]) => Promise<R[]>): Promise<R[]> {
-  const out: R[] = [];
-  for (let i = 0; i < rows.length; i += CHUNK) out.push(...(await insert(rows.slice(i, i + CHUNK))));
-  return out;
+/** Multi-row INSERT of `rows` (each `columns.length` values) in as few statements as the parameter limit allows. */
+async function insertRows(raw: LibsqlTransaction, table: string, columns: string[], rows: InValue[][]) {
+  const per = Math.floor(MAX_ARGS / columns.length);
+  const tuple = `(${columns.map(() => "?").join(",")})`;
+  for (let i = 0; i < rows.length; i += per) {
+    const chunk = rows.slice(i, i + per);
+    await raw.execute({ sql: `insert into "${table}" (${columns.map((c) => `"${c}"`).join(", ")}) values ${Array(chunk.length).fill(tuple).join(", ")}`, args: chunk.flat() });
+  }
 }
 
 /**
- * Stores new events (ids already seen are skipped) and runs each through the
- * active rules in time order. The engine runs first; then events, steps,
- * commands and notices go in as multi-row INSERTs (a row per statement cost ~70 %
- * of a batch, bench/ingest.ts), all in the one transaction.
+ * The seq the next row of each AUTOINCREMENT table gets: one past the largest
+ * ever used (sqlite_sequence) or present, as SQLite itself picks it. Valid only
+ * inside the write transaction, where no one else can insert.
  */
-export async function ingestEvents({ siteId, batch, source }: { siteId: string; batch: DeviceEvent[]; source: "gateway" | "bench" | "import" | "console" }): Promise<IngestResult> {
+async function nextSeqs(raw: LibsqlTransaction) {
+  const one = (t: string) => `max(coalesce((select seq from sqlite_sequence where name = '${t}'), 0), coalesce((select max(seq) from "${t}"), 0)) + 1`;
+  const r = (await raw.execute(`select ${one("events")}, ${one("engine_steps")}, ${one("gateway_commands")}`)).rows[0];
+  return { events: Number(r[0]), steps: Number(r[1]), commands: Number(r[2]) };
+}
+
+/** What Drizzle writes for a `mode: "json"` text column (db/schema.ts): JSON.stringify, and NULL for null. */
+const jsonText = (v: unknown): string | null => (v === null || v === undefined ? null : JSON.stringify(v));
+
+/** The ids of `ids` already in the site's event log. */
+async function storedEventIds(tx: Tx, siteId: string, ids: string[]): Promise<Set<string>> {
+  const raw = rawTx(tx);
+  const seen = new Set<string>();
+  for (let i = 0; i < ids.length; i += MAX_ARGS - 1) {
+    const chunk = ids.slice(i, i + MAX_ARGS - 1);
+    const rs = await raw.execute({ sql: `select event_id from events where site_id = ? and event_id in (${chunk.map(() => "?").join(",")})`, args: [siteId, ...chunk] });
+    for (const r of rs.rows) seen.add(r[0] as string);
+  }
+  return seen;
+}
+
+/**
+ * Writes new events, the step each produced and what the steps produced, on
+ * the write transaction `tx`: events, steps and commands as multi-row INSERTs
+ * in plain SQL with their seqs numbered here in VALUES order, exactly as
+ * AUTOINCREMENT would number them (no RETURNING, no per-value mapping), and
+ * notices through Drizzle (few, and their columns have defaults). Exported for
+ * bench/ingest.ts, which times it alone.
+ */
+export async function writeIngested(tx: Tx, { siteId, source, versionId, events: fresh, steps, receivedAt }: { siteId: string; source: IngestSource; versionId: string | null; events: DeviceEvent[]; steps: Step[]; receivedAt: number }): Promise<Omit<IngestResult, "duplicates">> {
+  const raw = rawTx(tx);
+  const result: Omit<IngestResult, "duplicates"> = { accepted: [], commands: [] };
+  const next = await nextSeqs(raw);
+  const eventRows: [string, number, string, string, string | null][] = [];
+  const stepRows: InValue[][] = [];
+  const commandRows: InValue[][] = [];
+  fresh.forEach((e, i) => {
+    const eventSeq = next.events + i;
+    const stepSeq = next.steps + i;
+    const step = steps[i];
+    eventRows.push([e.id, e.at, e.device, e.kind, jsonText(e.value)]);
+    stepRows.push([stepSeq, siteId, eventSeq, step.at, versionId, JSON.stringify(outputOf(step))]);
+    for (const command of step.commands) {
+      const seq = next.commands + result.commands.length;
+      commandRows.push([seq, siteId, stepSeq, command.at, JSON.stringify(command)]);
+      result.commands.push({ ...command, seq });
+    }
+    result.accepted.push({ id: e.id, stepSeq });
+  });
+  if (eventRows.length) {
+    // One bound JSON array rather than 9 values a row: SQLite unpacks it faster than the driver binds them (bench/ingest.ts).
+    await raw.execute({
+      sql: "insert into events (seq, site_id, event_id, at, device, kind, value, source, received_at) select ? + key, ?, value ->> 0, value ->> 1, value ->> 2, value ->> 3, value ->> 4, ?, ? from json_each(?) order by key",
+      args: [next.events, siteId, source, receivedAt, JSON.stringify(eventRows)],
+    });
+  }
+  await insertRows(raw, "engine_steps", ["seq", "site_id", "event_seq", "at", "version_id", "output"], stepRows);
+  await insertRows(raw, "gateway_commands", ["seq", "site_id", "step_seq", "at", "command"], commandRows);
+  const notices = steps.flatMap((st) => st.notices.map((n) => outboxRow(siteId, n)));
+  for (let i = 0; i < notices.length; i += NOTICE_CHUNK) await tx.insert(noticesOutbox).values(notices.slice(i, i + NOTICE_CHUNK)).onConflictDoNothing();
+  return result;
+}
+
+type IngestSource = "gateway" | "bench" | "import" | "console";
+
+/**
+ * Stores new events (ids already seen are skipped) and runs each through the
+ * active rules in time order, then writes them all at once (`writeIngested`),
+ * in the one transaction.
+ */
+export async function ingestEvents({ siteId, batch, source }: { siteId: string; batch: DeviceEvent[]; source: IngestSource }): Promise<IngestResult> {
   const ordered = [...batch].sort((a, b) => a.at - b.at || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   return withLiveEngine(siteId, async (engine, tx, versionId) => {
-    const result: IngestResult = { accepted: [], duplicates: [], commands: [] };
-    const receivedAt = Date.now();
-    const ids = [...new Set(ordered.map((e) => e.id))];
-    const seen = new Set<string>();
-    for (let i = 0; i < ids.length; i += CHUNK) {
-      const rows = await tx.select({ eventId: events.eventId }).from(events).where(and(eq(events.siteId, siteId), inArray(events.eventId, ids.slice(i, i + CHUNK))));
-      for (const r of rows) seen.add(r.eventId);
-    }
+    const duplicates: string[] = [];
+    const seen = await storedEventIds(tx, siteId, [...new Set(ordered.map((e) => e.id))]);
     const fresh: DeviceEvent[] = [];
     for (const event of ordered) {
-      if (seen.has(event.id)) result.duplicates.push(event.id);
+      if (seen.has(event.id)) duplicates.push(event.id);
       else {
         seen.add(event.id);
         fresh.push(event);
       }
     }
-    if (!fresh.length) return result;
-
-    const steps: Step[] = [];
-    for (const event of fresh) steps.push(await engine.ingest(event));
-
-    const storedEvents = await insertChunked(fresh, (chunk) =>
-      tx
-        .insert(events)
-        .values(chunk.map((e) => ({ siteId, eventId: e.id, at: e.at, device: e.device, kind: e.kind, value: e.value, source, receivedAt })))
-        .returning({ seq: events.seq, eventId: events.eventId }),
-    );
-    const eventSeq = new Map(storedEvents.map((r) => [r.eventId, r.seq]));
-    const storedSteps = await insertChunked(
-      fresh.map((e, i) => ({ siteId, eventSeq: eventSeq.get(e.id)!, at: steps[i].at, versionId, output: outputOf(steps[i]) })),
-      (chunk) => tx.insert(engineSteps).values(chunk).returning({ seq: engineSteps.seq, eventSeq: engineSteps.eventSeq }),
-    );
-    const stepSeqByEvent = new Map(storedSteps.map((r) => [r.eventSeq!, r.seq]));
-    const commandRows = fresh.flatMap((e, i) => steps[i].commands.map((command) => ({ siteId, stepSeq: stepSeqByEvent.get(eventSeq.get(e.id)!)!, at: command.at, command })));
-    // RETURNING order is not promised; inside this write transaction the new seqs are
-    // consecutive in VALUES order, so sorting them lines them up with commandRows.
-    const storedCommands = (await insertChunked(commandRows, (chunk) => tx.insert(gatewayCommands).values(chunk).returning({ seq: gatewayCommands.seq }))).sort((a, b) => a.seq - b.seq);
-    const notices = steps.flatMap((st) => st.notices.map((n) => outboxRow(siteId, n)));
-    await insertChunked(notices, async (chunk) => {
-      await tx.insert(noticesOutbox).values(chunk).onConflictDoNothing();
-      return [];
-    });
-
-    fresh.forEach((e) => result.accepted.push({ id: e.id, stepSeq: stepSeqByEvent.get(eventSeq.get(e.id)!)! }));
-    commandRows.forEach((row, i) => result.commands.push({ ...(row.command as GatewayCommand), seq: storedCommands[i].seq }));
-    return result;
+    if (!fresh.length) return { accepted: [], duplicates, commands: [] };
+    const steps = fresh.map((event) => engine.ingest(event));
+    const written = await writeIngested(tx, { siteId, source, versionId, events: fresh, steps, receivedAt: Date.now() });
+    return { accepted: written.accepted, duplicates, commands: written.commands };
   });
 }
 
@@ -166,7 +293,7 @@ function outputOf(step: Step) {
 /** Fires every timer due up to `to` (the worker, or a gateway heartbeat). */
 export async function advanceSite({ siteId, to }: { siteId: string; to: number }): Promise<{ stepSeq: number | null; commands: (GatewayCommand & { seq: number })[] }> {
   return withLiveEngine(siteId, async (engine, tx, versionId) => {
-    const step = await engine.advanceTo(to);
+    const step = engine.advanceTo(to);
     if (!step.changes.length && !step.commands.length && !step.notices.length && !step.trace.length) return { stepSeq: null, commands: [] };
     return storeStep(tx, siteId, step, null, versionId);
   });

@@ -1,8 +1,8 @@
-import { count, eq, sql } from "drizzle-orm";
+import { asc, count, eq, inArray, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
-import { getLiveState, ingestEvents } from "@/db/queries/live";
-import { engineStates, engineSteps, events } from "@/db/schema";
+import { getLiveState, ingestEvents, loadEngineInput, openLive } from "@/db/queries/live";
+import { devices, engineStates, engineSteps, events, gatewayCommands } from "@/db/schema";
 import { DEMO_SITE_ID } from "@/db/seed/demo-site";
 import type { DeviceEvent } from "@/lib/bus/types";
 import { seedDemoSite } from "./helpers";
@@ -31,7 +31,7 @@ describe("ingest is all or nothing", () => {
     const before = await counts();
     // Fault injection in the database itself: the second event's step cannot be written.
     await db.run(sql.raw(`CREATE TRIGGER fail_second_step BEFORE INSERT ON engine_steps WHEN NEW.at = ${base + 2 * 60_000} BEGIN SELECT RAISE(ABORT, 'simulated crash'); END`));
-    await expect(ingestEvents({ siteId: DEMO_SITE_ID, batch, source: "gateway" })).rejects.toThrow(/insert into "engine_steps"/);
+    await expect(ingestEvents({ siteId: DEMO_SITE_ID, batch, source: "gateway" })).rejects.toThrow(/simulated crash/);
     expect(await counts()).toEqual(before);
     expect(await getLiveState({ siteId: DEMO_SITE_ID })).toBeNull();
 
@@ -78,5 +78,99 @@ describe("clearing a latched emergency in the console", () => {
     expect((await getLiveState({ siteId: DEMO_SITE_ID }))?.emergency.active).toBe(false);
     const [last] = await getDb().select({ output: engineSteps.output }).from(engineSteps).where(eq(engineSteps.siteId, DEMO_SITE_ID)).orderBy(sql`seq desc`).limit(1);
     expect(JSON.stringify(last.output)).toMatch(/Cleared in the console by clear-m/);
+  });
+});
+
+describe("the store's plain-SQL writes", () => {
+  it("read back exactly as Drizzle wrote them, numbered after every seq ever used (AUTOINCREMENT)", async () => {
+    const db = getDb();
+    // A step seq used and deleted before this batch must not come back, as SQLite's AUTOINCREMENT promises.
+    const [gone] = await db.insert(engineSteps).values({ siteId: DEMO_SITE_ID, eventSeq: null, at: base, versionId: null, output: {} }).returning({ seq: engineSteps.seq });
+    await db.delete(engineSteps).where(eq(engineSteps.seq, gone.seq));
+    const list: DeviceEvent[] = [
+      ev(40, "press", "call-counter", null),
+      ev(41, "contact", "contact-back", "open"),
+      ev(42, "motion", "sensor-path", true),
+      ev(43, "temperature", "climate-workshop", 21.5),
+      ev(44, "press", "rocker-shop-door", 1),
+    ];
+    const result = await ingestEvents({ siteId: DEMO_SITE_ID, batch: [...list].reverse(), source: "import" });
+    expect(result.accepted.map((a) => a.id)).toEqual(list.map((e) => e.id));
+    expect(result.accepted[0].stepSeq).toBe(gone.seq + 1);
+    expect(result.accepted.map((a) => a.stepSeq)).toEqual(list.map((_, i) => gone.seq + 1 + i));
+
+    // Through Drizzle's own column mapping: the JSON value column parses back to the value sent.
+    const stored = await db.select().from(events).where(inArray(events.eventId, list.map((e) => e.id))).orderBy(asc(events.seq));
+    expect(stored.map((r) => ({ id: r.eventId, at: r.at, device: r.device, kind: r.kind, value: r.value, source: r.source }))).toEqual(list.map((e) => ({ id: e.id, at: e.at, device: e.device, kind: e.kind, value: e.value, source: "import" })));
+    expect(stored.every((r, i) => i === 0 || r.seq === stored[i - 1].seq + 1)).toBe(true);
+    expect(typeof stored[0].receivedAt).toBe("number");
+    // And byte for byte what Drizzle binds for a `mode: "json"` text column: JSON text, NULL for null.
+    const raw = await db.$client.execute({ sql: `select value, typeof(value), typeof(at) from events where event_id in (${list.map(() => "?").join(",")}) order by seq`, args: list.map((e) => e.id) });
+    expect(raw.rows.map((r) => [r[0], r[1], r[2]])).toEqual([
+      [null, "null", "integer"],
+      ['"open"', "text", "integer"],
+      ["true", "text", "integer"],
+      ["21.5", "text", "integer"],
+      ["1", "text", "integer"],
+    ]);
+
+    const steps = await db.select().from(engineSteps).where(inArray(engineSteps.seq, result.accepted.map((a) => a.stepSeq))).orderBy(asc(engineSteps.seq));
+    expect(steps.map((s) => s.eventSeq)).toEqual(stored.map((r) => r.seq));
+    const version = (await loadEngineInput(DEMO_SITE_ID)).versionId;
+    expect(steps.every((s) => s.versionId === version && s.siteId === DEMO_SITE_ID)).toBe(true);
+    const outputs = steps.map((s) => s.output as { changes: unknown[]; commands: unknown[]; notices: unknown[]; trace: { ruleId?: string }[] });
+    expect(Object.keys(outputs[0])).toEqual(["changes", "commands", "notices", "trace"]);
+    // The rocker press recalls a scene: its commands are in the step and in gateway_commands, with the seqs the answer gave.
+    expect(result.commands.length).toBeGreaterThan(0);
+    const commands = await db.select().from(gatewayCommands).where(inArray(gatewayCommands.stepSeq, result.accepted.map((a) => a.stepSeq))).orderBy(asc(gatewayCommands.seq));
+    expect(commands.map((c) => ({ ...(c.command as object), seq: c.seq }))).toEqual(result.commands);
+    expect(outputs.flatMap((o) => o.commands)).toEqual(commands.map((c) => c.command));
+
+    // A later Drizzle insert (advanceSite's path) carries on after the seqs numbered here.
+    const [after] = await db.insert(engineSteps).values({ siteId: DEMO_SITE_ID, eventSeq: null, at: base, versionId: null, output: {} }).returning({ seq: engineSteps.seq });
+    expect(after.seq).toBe(result.accepted.at(-1)!.stepSeq + 1);
+    await db.delete(engineSteps).where(eq(engineSteps.seq, after.seq));
+  });
+
+  it("a fault in the commands INSERT, after events and steps went in, stores nothing", async () => {
+    const db = getDb();
+    const before = await counts();
+    const state = await getLiveState({ siteId: DEMO_SITE_ID });
+    await db.run(sql.raw("CREATE TRIGGER fail_commands BEFORE INSERT ON gateway_commands BEGIN SELECT RAISE(ABORT, 'simulated crash'); END"));
+    try {
+      await expect(ingestEvents({ siteId: DEMO_SITE_ID, batch: [ev(50, "press", "rocker-shop-door", 2)], source: "gateway" })).rejects.toThrow(/simulated crash/);
+    } finally {
+      await db.run(sql.raw("DROP TRIGGER fail_commands"));
+    }
+    expect(await counts()).toEqual(before);
+    expect(await getLiveState({ siteId: DEMO_SITE_ID })).toEqual(state);
+  });
+});
+
+describe("the live store's site input", () => {
+  it("is loadEngineInput's (same lists, same order), reused while unchanged, rebuilt when a device changes", async () => {
+    const db = getDb();
+    const open = () => db.transaction((tx) => openLive(tx, DEMO_SITE_ID));
+    const loaded = await loadEngineInput(DEMO_SITE_ID);
+    const first = await open();
+    expect(first.input).toEqual(loaded.input);
+    expect(first.versionId).toBe(loaded.versionId);
+    expect(first.rules.groups.size).toBeGreaterThan(0);
+    const again = await open();
+    expect(again.input).toBe(first.input);
+    expect(again.rules).toBe(first.rules);
+
+    const id = `${DEMO_SITE_ID}-dev-lux-window`;
+    const [device] = await db.select().from(devices).where(eq(devices.id, id));
+    await db.update(devices).set({ name: "Window light sensor (moved)" }).where(eq(devices.id, id));
+    try {
+      const changed = await open();
+      expect(changed.input).not.toBe(first.input);
+      expect(changed.input).toEqual((await loadEngineInput(DEMO_SITE_ID)).input);
+      expect(changed.input.devices.find((d) => d.id === id)?.name).toBe("Window light sensor (moved)");
+    } finally {
+      await db.update(devices).set({ name: device.name }).where(eq(devices.id, id));
+    }
+    expect((await open()).input).toEqual(loaded.input);
   });
 });
