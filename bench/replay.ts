@@ -180,6 +180,18 @@ async function main() {
   const raw = await rawRead();
   const rawRate = raw.count / (raw.ms / 1000);
   console.log(`\nA. raw read in time order (libSQL client, keyset pages of ${PAGE} on (site, at, seq)): ${fmt(raw.count)} rows in ${(raw.ms / 1000).toFixed(2)} s = ${fmt(rawRate)} rows/s  [baseline 1.00]`);
+  // What Replay's reader thread hands over when nothing runs the pages: its ceiling.
+  const { readLogPagesAhead } = await import("@/db/queries/replay-log");
+  let tAhead = performance.now();
+  let ahead = 0;
+  let firstPage = 0;
+  for await (const page of readLogPagesAhead({ siteId: SITE, from: YEAR_START, to: YEAR_START + YEAR_MS + 1, pageSize: PAGE })) {
+    if (!ahead) firstPage = performance.now() - tAhead;
+    ahead += page.length;
+  }
+  tAhead = performance.now() - tAhead;
+  console.log(`    (first page after ${firstPage.toFixed(0)} ms: the thread's start)`);
+  console.log(`A2. the same rows through Replay's reader thread, pages not run: ${fmt(ahead)} in ${(tAhead / 1000).toFixed(2)} s = ${fmt(ahead / (tAhead / 1000))} rows/s  [${(ahead / (tAhead / 1000) / rawRate).toFixed(2)} of raw]`);
 
   // ——— Replay through the worker's code path ———
   const window = { from: YEAR_START, to: YEAR_START + YEAR_MS + 1 };

@@ -32,6 +32,17 @@ parentPort.on("message", (message) => {
   }
 });
 
+/** A stored value (JSON text): numbers and true/false, most of a log, without the JSON parser. */
+function valueOf(text) {
+  if (text === null) return null;
+  if (text === "true") return true;
+  if (text === "false") return false;
+  const n = Number(text);
+  // Number() reads some texts JSON does not ("", " 1", "0x10", "Infinity"): only take it when it prints back the same.
+  if (!Number.isNaN(n) && String(n) === text) return n;
+  return JSON.parse(text);
+}
+
 function indexOf(map, fresh, name) {
   let i = map.get(name);
   if (i === undefined) {
@@ -65,7 +76,7 @@ async function main() {
       times[i] = Number(r[2]);
       devices[i] = indexOf(deviceIndex, newDevices, r[3]);
       kinds[i] = indexOf(kindIndex, newKinds, r[4]);
-      values[i] = r[5] === null ? null : JSON.parse(r[5]);
+      values[i] = valueOf(r[5]);
     }
     at = times[n - 1];
     seq = Number(rs.rows[n - 1][0]);

@@ -74,23 +74,22 @@ export function createCore(rt: Runtime) {
     const origin = `timer:${timer.seq}`;
     const p = timer.payload;
     const at = rt.state.now;
-    const push = (key: string, type: string, device: string | null, value: unknown) => rt.queue.push({ key, type, at, origin, device, value, depth: 0 });
     switch (p.kind) {
       case "schedule": {
-        push(p.triggerKey, "time-of-day", null, null);
+        rt.queue.push({ key: p.triggerKey, type: "time-of-day", at, origin, device: null, value: null, depth: 0 });
         const watch = rt.index.watches.schedules.find((w) => w.key === p.triggerKey);
         const next = watch ? nextOccurrence(watch.at, timer.due, rt.model.site) : null;
         if (next !== null) rt.timers.set(timer.key, next, p);
         break;
       }
       case "named":
-        push(triggerKey("timer-fired", p.name), "timer-fired", null, p.name);
+        rt.queue.push({ key: triggerKey("timer-fired", p.name), type: "timer-fired", at, origin, device: null, value: p.name, depth: 0 });
         break;
       case "vacancy":
-        push(p.triggerKey, "vacancy", p.device, null);
+        rt.queue.push({ key: p.triggerKey, type: "vacancy", at, origin, device: p.device, value: null, depth: 0 });
         break;
       case "left-open":
-        push(p.triggerKey, "contact-left-open", p.device, "open");
+        rt.queue.push({ key: p.triggerKey, type: "contact-left-open", at, origin, device: p.device, value: "open", depth: 0 });
         break;
       default:
         fireSystemTimer(rt, p, origin, at);
@@ -212,6 +211,27 @@ export function scheduleMissing(rt: Runtime): void {
 
 function remember(rt: Runtime, id: string) {
   rt.recent.add(id);
-  rt.state.recentEventIds.push(id);
-  if (rt.state.recentEventIds.length > RECENT_IDS) rt.recent.delete(rt.state.recentEventIds.shift()!);
+  const ring = rt.recentRing;
+  const gone = ring[rt.recentHead];
+  if (gone !== undefined) rt.recent.delete(gone);
+  ring[rt.recentHead] = id;
+  rt.recentHead = (rt.recentHead + 1) % RECENT_IDS;
+}
+
+/** The ring of recent ids as the state keeps them: oldest first. */
+export function recentIds(rt: Runtime): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < RECENT_IDS; i++) {
+    const id = rt.recentRing[(rt.recentHead + i) % RECENT_IDS];
+    if (id !== undefined) out.push(id);
+  }
+  return out;
+}
+
+/** A ring holding the newest RECENT_IDS of `ids` (oldest first), for a runtime. */
+export function recentRingOf(ids: string[]): { recent: Set<string>; recentRing: (string | undefined)[]; recentHead: number } {
+  const kept = ids.slice(-RECENT_IDS);
+  const recentRing: (string | undefined)[] = new Array(RECENT_IDS).fill(undefined);
+  kept.forEach((id, i) => (recentRing[i] = id));
+  return { recent: new Set(kept), recentRing, recentHead: kept.length % RECENT_IDS };
 }

@@ -2,7 +2,7 @@ import { formatAddress } from "@/lib/mesh/address";
 import { encodeGenericOnOffSetUnack, encodeLightLightnessSetUnack, encodeSceneRecallUnack, nextTid, toHex } from "@/lib/mesh/commands";
 import { levelToActual } from "@/lib/mesh/lightness";
 import { encodeTransitionTime } from "@/lib/mesh/transition-time";
-import { withCause, type Runtime } from "./runtime";
+import type { Runtime } from "./runtime";
 import type { Cause, CommandMessage } from "./types";
 
 /** How luminaires are told: a Light Lightness level, or a Scene Recall of levels they store. */
@@ -76,18 +76,15 @@ function send(rt: Runtime, env: Envelope, encode: (tid: number) => Uint8Array, c
   // A receiver treats a repeat of (source, destination, TID) within seconds as the same transaction, so every message takes the next TID.
   const tid = rt.state.tids[counter] ?? 0;
   rt.state.tids[counter] = nextTid(tid);
+  const transition = env.fadeMs === undefined ? null : encodeTransitionTime(env.fadeMs);
+  const bytes = toHex(encode(tid));
+  const { origin, ruleId, actionId, reason } = cause;
+  const { destination, addressing, message, devices } = env;
+  const ttl = rt.model.ttl;
+  // withCause as one literal per shape: the engine sends a command for most actions.
   rt.out.commands.push(
-    withCause(cause, {
-      at,
-      source,
-      destination: env.destination,
-      addressing: env.addressing,
-      message: env.message,
-      tid,
-      ttl: rt.model.ttl,
-      transition: env.fadeMs === undefined ? null : encodeTransitionTime(env.fadeMs),
-      bytes: toHex(encode(tid)),
-      devices: env.devices,
-    }),
+    reason
+      ? { origin, ruleId, actionId, reason, at, source, destination, addressing, message, tid, ttl, transition, bytes, devices }
+      : { origin, ruleId, actionId, at, source, destination, addressing, message, tid, ttl, transition, bytes, devices },
   );
 }

@@ -1,7 +1,7 @@
 import type { RuleJson } from "@/lib/rules/compile";
 import { evaluateWithClosures, evaluateWithRulesEngine } from "@/lib/rules/evaluate";
 import { buildRuleIndex, type RuleIndex } from "@/lib/rules/rule-index";
-import { createCore, emptyStep, scheduleMissing } from "./core";
+import { createCore, emptyStep, recentIds, recentRingOf, scheduleMissing } from "./core";
 import { groupByDevice, type Runtime } from "./runtime";
 import { buildSiteModel, type SiteInput } from "./site-model";
 import { canonical, initialState } from "./state";
@@ -85,7 +85,7 @@ function createRuntime(options: EngineOptions, tracing = true): Runtime {
     index,
     state,
     timers,
-    recent: new Set(state.recentEventIds),
+    ...recentRingOf(state.recentEventIds),
     watchesByDevice: {
       thresholds: groupByDevice(index.watches.thresholds),
       vacancy: groupByDevice(index.watches.vacancy),
@@ -103,5 +103,5 @@ function createRuntime(options: EngineOptions, tracing = true): Runtime {
 }
 
 function snapshot(rt: Runtime): EngineState {
-  return canonical({ ...rt.state, timers: rt.timers.toJSON() });
+  return canonical({ ...rt.state, recentEventIds: recentIds(rt), timers: rt.timers.toJSON() });
 }

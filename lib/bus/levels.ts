@@ -1,8 +1,8 @@
 import { OVERRIDE_LEVELS, type OverrideLevel } from "@/lib/rules/trigger-key";
 import { planLevelCommands, type Addressed, type LevelMessage } from "./emit";
 import { effectiveLevel, topLevel } from "./overrides";
-import { withCause, type Runtime } from "./runtime";
-import type { Cause, Slot } from "./types";
+import type { Runtime } from "./runtime";
+import type { Cause, Slot, StateChange } from "./types";
 
 export type WriteResult = { reached: number; changed: number; held: number; heldBy: OverrideLevel | null };
 
@@ -46,8 +46,14 @@ export function settle(rt: Runtime, deviceId: string, cause: Cause, at: number):
   const to = effectiveLevel(stack, from);
   if (to === from) return false;
   rt.state.levels[deviceId] = to;
-  rt.out.changes.push(withCause(cause, { at, kind: "level" as const, deviceId, from, to, source: topLevel(stack) }));
+  rt.out.changes.push(levelChange(cause, at, deviceId, from, to, topLevel(stack)));
   return true;
+}
+
+/** withCause for the commonest output, as one literal per shape (the engine makes one per luminaire that changes). */
+function levelChange(cause: Cause, at: number, deviceId: string, from: number, to: number, source: OverrideLevel | null): StateChange {
+  const { origin, ruleId, actionId, reason } = cause;
+  return reason ? { origin, ruleId, actionId, reason, at, kind: "level", deviceId, from, to, source } : { origin, ruleId, actionId, at, kind: "level", deviceId, from, to, source };
 }
 
 /** Drops the claims `drop` picks, then moves each luminaire to what is left. Returns how many changed. */

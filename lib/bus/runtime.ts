@@ -22,7 +22,10 @@ export type Runtime = {
   index: RuleIndex;
   state: EngineState;
   timers: TimerQueue;
+  /** The last RECENT_IDS event ids: a set to look up, and a ring in arrival order (state.recentEventIds is written from it on a snapshot). */
   recent: Set<string>;
+  recentRing: (string | undefined)[];
+  recentHead: number;
   watchesByDevice: {
     thresholds: Map<string, ThresholdWatch[]>;
     vacancy: Map<string, DelayWatch[]>;

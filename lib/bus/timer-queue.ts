@@ -89,7 +89,9 @@ export class TimerQueue {
     while (i > 0) {
       const parent = (i - 1) >> 1;
       if (compare(h[i], h[parent]) >= 0) return;
-      [h[i], h[parent]] = [h[parent], h[i]];
+      const t = h[i];
+      h[i] = h[parent];
+      h[parent] = t;
       i = parent;
     }
   }
@@ -103,7 +105,9 @@ export class TimerQueue {
       if (l < h.length && compare(h[l], h[m]) < 0) m = l;
       if (r < h.length && compare(h[r], h[m]) < 0) m = r;
       if (m === i) return;
-      [h[i], h[m]] = [h[m], h[i]];
+      const t = h[i];
+      h[i] = h[m];
+      h[m] = t;
       i = m;
     }
   }

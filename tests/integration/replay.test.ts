@@ -5,7 +5,8 @@ import * as replayRoute from "@/app/api/sites/[siteId]/replays/[jobId]/route";
 import * as cancelRoute from "@/app/api/sites/[siteId]/replays/[jobId]/cancel/route";
 import { getDb } from "@/db";
 import { ingestEvents } from "@/db/queries/live";
-import { replayLog } from "@/db/queries/replay-log";
+import { readLogPages } from "@/db/queries/events";
+import { readLogPagesAhead, replayLog } from "@/db/queries/replay-log";
 import { claimReplayJob, finishReplayJob, reportReplayProgress, resolveRuleSet } from "@/db/queries/replays";
 import { getRuleSet, saveDraft } from "@/db/queries/rule-sets";
 import { engineSteps, events, replayJobs } from "@/db/schema";
@@ -66,6 +67,41 @@ describe("replay of the live log", () => {
     }
     // Not vacuous: the night did light things and send commands.
     expect(stored.some((s) => (s.output as Step).commands.length > 0)).toBe(true);
+  });
+});
+
+describe("the reader thread", () => {
+  it("hands over the same events, in the same order, as reading them here, across page boundaries and for every kind of value", async () => {
+    // A second site with values of every shape a log holds, a few at the same instant (ordered by seq).
+    const at0 = Date.UTC(2024, 0, 1);
+    const values: unknown[] = [0, -0, 12.5, 1e21, 300, -40.25, true, false, null, "open", "closed", "-", "1e3", "0x10", " 7", { a: [1, "é\"\\"] }];
+    const batch = values.map((value, i) => ({ id: `shape-${i}`, siteId: DEMO_SITE_ID, at: at0 + Math.floor(i / 3) * 1000, device: "larch-lane-dev-lux-window", kind: "light-level", value: value as number }));
+    const db = getDb();
+    await db.insert(events).values(batch.map((e) => ({ siteId: DEMO_SITE_ID, eventId: e.id, at: e.at, device: e.device, kind: e.kind, value: e.value, source: "import" as const, receivedAt: 0 })));
+    const window = { siteId: DEMO_SITE_ID, from: at0, to: at0 + 3_600_000, pageSize: 4 };
+    const here: unknown[] = [];
+    for await (const page of readLogPages(window)) for (const { seq: _seq, ...e } of page) here.push(e);
+    const ahead: unknown[] = [];
+    let pages = 0;
+    for await (const page of readLogPagesAhead(window)) {
+      pages++;
+      ahead.push(...page);
+    }
+    expect(pages).toBe(Math.ceil(values.length / 4));
+    expect(ahead).toEqual(here);
+    expect(ahead.map((e) => (e as { value: unknown }).value)).toEqual(values.map((v) => (Object.is(v, -0) ? 0 : v)));
+    await db.delete(events).where(and(eq(events.siteId, DEMO_SITE_ID), eq(events.source, "import")));
+  });
+
+  it("stops when the reader leaves the loop early", async () => {
+    const pages = readLogPagesAhead({ siteId: DEMO_SITE_ID, from: NIGHT_WINDOW.from, to: NIGHT_WINDOW.to, pageSize: 2 });
+    for await (const page of pages) {
+      expect(page.length).toBe(2);
+      break;
+    }
+    // Closing again is harmless, and a closed reader hands over nothing more.
+    await pages.close();
+    expect((await pages.next()).done).toBe(true);
   });
 });
 
