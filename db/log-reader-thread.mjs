@@ -32,17 +32,6 @@ parentPort.on("message", (message) => {
   }
 });
 
-/** A stored value (JSON text): numbers and true/false, most of a log, without the JSON parser. */
-function valueOf(text) {
-  if (text === null) return null;
-  if (text === "true") return true;
-  if (text === "false") return false;
-  const n = Number(text);
-  // Number() reads some texts JSON does not ("", " 1", "0x10", "Infinity"): only take it when it prints back the same.
-  if (!Number.isNaN(n) && String(n) === text) return n;
-  return JSON.parse(text);
-}
-
 function indexOf(map, fresh, name) {
   let i = map.get(name);
   if (i === undefined) {
@@ -53,15 +42,20 @@ function indexOf(map, fresh, name) {
   return i;
 }
 
+// One row per page: SQLite builds the page as one JSON array (values already parsed
+// from their stored JSON), and one JSON.parse here reads it — several times cheaper
+// than the client turning each row into an object. A stored value that is not valid
+// JSON (nothing writes one) comes through as its text rather than failing the page.
+const PAGE_SQL = `SELECT json_group_array(json_array(seq, event_id, at, device, kind, CASE WHEN value IS NULL THEN NULL WHEN json_valid(value) THEN json(value) ELSE value END))
+  FROM (SELECT seq, event_id, at, device, kind, value FROM events WHERE site_id = ? AND at >= ? AND (at > ? OR seq > ?) AND at < ? ORDER BY at, seq LIMIT ?)`;
+
 async function main() {
   let at = from;
   let seq = -1;
   for (;;) {
-    const rs = await client.execute({
-      sql: "SELECT seq, event_id, at, device, kind, value FROM events WHERE site_id = ? AND at >= ? AND (at > ? OR seq > ?) AND at < ? ORDER BY at, seq LIMIT ?",
-      args: [siteId, at, at, seq, to, pageSize],
-    });
-    const n = rs.rows.length;
+    const rs = await client.execute({ sql: PAGE_SQL, args: [siteId, at, at, seq, to, pageSize] });
+    const rows = JSON.parse(rs.rows[0][0]);
+    const n = rows.length;
     if (n === 0) break;
     const ids = new Array(n);
     const times = new Float64Array(n);
@@ -71,15 +65,15 @@ async function main() {
     const newDevices = [];
     const newKinds = [];
     for (let i = 0; i < n; i++) {
-      const r = rs.rows[i];
+      const r = rows[i];
       ids[i] = r[1];
-      times[i] = Number(r[2]);
+      times[i] = r[2];
       devices[i] = indexOf(deviceIndex, newDevices, r[3]);
       kinds[i] = indexOf(kindIndex, newKinds, r[4]);
-      values[i] = valueOf(r[5]);
+      values[i] = r[5];
     }
     at = times[n - 1];
-    seq = Number(rs.rows[n - 1][0]);
+    seq = rows[n - 1][0];
     while (credit <= 0) await new Promise((resolve) => (wake = resolve));
     credit--;
     parentPort.postMessage({ kind: "page", ids, times, devices, kinds, values, newDevices, newKinds }, [times.buffer, devices.buffer, kinds.buffer]);

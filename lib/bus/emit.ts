@@ -18,34 +18,43 @@ export type Addressed = { deviceId: string; to: number; isChanged: boolean };
  */
 export function planLevelCommands(rt: Runtime, addressed: Addressed[], message: LevelMessage, cause: Cause, at: number): void {
   if (addressed.length === 0) return;
+  const zoneOf = (a: Addressed) => rt.model.devices.get(a.deviceId)?.zoneId ?? null;
+  // Usually one action reaches one zone: no grouping needed.
+  const first = zoneOf(addressed[0]);
+  let isOneZone = true;
+  for (let i = 1; i < addressed.length && isOneZone; i++) isOneZone = zoneOf(addressed[i]) === first;
+  if (isOneZone) {
+    planZone(rt, first, addressed, message, cause, at);
+    return;
+  }
   const byZone = new Map<string | null, Addressed[]>();
   for (const a of addressed) {
-    const zoneId = rt.model.devices.get(a.deviceId)?.zoneId ?? null;
+    const zoneId = zoneOf(a);
     const list = byZone.get(zoneId);
     if (list) list.push(a);
     else byZone.set(zoneId, [a]);
   }
-  // Zones in site order, luminaires without a zone last (usually one zone: nothing to sort).
-  const zoneIds = [...byZone.keys()];
-  if (zoneIds.length > 1) zoneIds.sort((a, b) => zoneRank(rt, a) - zoneRank(rt, b));
-  for (const zoneId of zoneIds) {
-    const inZone = byZone.get(zoneId)!;
-    if (!inZone.some((a) => a.isChanged)) continue;
-    const group = zoneId === null ? null : rt.model.zones.get(zoneId)?.groupAddress ?? null;
-    const members = zoneId === null ? [] : rt.model.luminairesByZone.get(zoneId) ?? [];
-    const isWholeZone =
-      group !== null &&
-      members.every((id) => inZone.some((a) => a.deviceId === id)) &&
-      (message.kind === "scene" || inZone.every((a) => a.to === inZone[0].to));
-    if (isWholeZone) {
-      sendLevel(rt, group, "group", message, inZone[0].to, members, cause, at);
-    } else {
-      for (const a of inZone) {
-        if (!a.isChanged) continue;
-        const address = rt.model.devices.get(a.deviceId)!.unicastAddress;
-        sendLevel(rt, address, "unicast", message, a.to, [a.deviceId], cause, at);
-      }
-    }
+  // Zones in site order, luminaires without a zone last.
+  const zoneIds = [...byZone.keys()].sort((a, b) => zoneRank(rt, a) - zoneRank(rt, b));
+  for (const zoneId of zoneIds) planZone(rt, zoneId, byZone.get(zoneId)!, message, cause, at);
+}
+
+function planZone(rt: Runtime, zoneId: string | null, inZone: Addressed[], message: LevelMessage, cause: Cause, at: number) {
+  if (!inZone.some((a) => a.isChanged)) return;
+  const group = zoneId === null ? null : rt.model.zones.get(zoneId)?.groupAddress ?? null;
+  const members = zoneId === null ? [] : rt.model.luminairesByZone.get(zoneId) ?? [];
+  const isWholeZone =
+    group !== null &&
+    members.every((id) => inZone.some((a) => a.deviceId === id)) &&
+    (message.kind === "scene" || inZone.every((a) => a.to === inZone[0].to));
+  if (isWholeZone) {
+    sendLevel(rt, group, "group", message, inZone[0].to, members, cause, at);
+    return;
+  }
+  for (const a of inZone) {
+    if (!a.isChanged) continue;
+    const address = rt.model.devices.get(a.deviceId)!.unicastAddress;
+    sendLevel(rt, address, "unicast", message, a.to, [a.deviceId], cause, at);
   }
 }
 

@@ -22,6 +22,7 @@ export function writeLevels(
 ): WriteResult {
   const addressed: Addressed[] = [];
   let held = 0;
+  let changed = 0;
   let heldBy: OverrideLevel | null = null;
   for (const w of writes) {
     const stack = (rt.state.overrides[w.deviceId] ??= {});
@@ -32,11 +33,13 @@ export function writeLevels(
       heldBy = top;
       continue;
     }
-    addressed.push({ deviceId: w.deviceId, to: w.level, isChanged: settle(rt, w.deviceId, cause, at) });
+    const isChanged = settle(rt, w.deviceId, cause, at);
+    if (isChanged) changed++;
+    addressed.push({ deviceId: w.deviceId, to: w.level, isChanged });
   }
   if (until !== null) scheduleHoldEnds(rt, writes.map((w) => w.deviceId), until);
   planLevelCommands(rt, addressed, message, cause, at);
-  return { reached: addressed.length, changed: addressed.filter((a) => a.isChanged).length, held, heldBy };
+  return { reached: addressed.length, changed, held, heldBy };
 }
 
 /** Recomputes a luminaire's level from its claims; records the change. */

@@ -13,37 +13,39 @@ type SystemPayload = Extract<TimerPayload, { kind: "occupancy" | "relay-off" | "
  * a relay's on-time running out, a manual hold ending. Their outputs name no rule
  * but carry a reason, and each gets its own trace entry saying what it did.
  */
+/** What a system timer did: its action (if any) for the step, and its own trace entry when tracing. */
+function reportSystem(rt: Runtime, at: number, origin: string, type: string, device: string | null, value: unknown, action: ActionTrace | null, note?: string) {
+  if (action) rt.out.actions.push(action);
+  if (rt.tracing) rt.out.trace.push({ at, origin, trigger: { key: null, type, device, value }, rules: [], actions: action ? [action] : [], ...(note ? { note } : {}) });
+}
+
 export function fireSystemTimer(rt: Runtime, p: SystemPayload, origin: string, at: number): void {
-  const report = (type: string, device: string | null, value: unknown, action: ActionTrace | null, note?: string) => {
-    if (action) rt.out.actions.push(action);
-    if (rt.tracing) rt.out.trace.push({ at, origin, trigger: { key: null, type, device, value }, rules: [], actions: action ? [action] : [], ...(note ? { note } : {}) });
-  };
 
   switch (p.kind) {
     case "occupancy": {
       rt.state.sensors.occupied[p.device] = false;
       const zoneId = rt.model.devices.get(p.device)?.zoneId ?? null;
       if (!zoneId || isZoneOccupied(rt, zoneId)) {
-        report("sensor-idle", p.device, zoneId, null, "No motion for the occupancy time; the zone is still occupied by another sensor.");
+        reportSystem(rt, at, origin, "sensor-idle", p.device, zoneId, null, "No motion for the occupancy time; the zone is still occupied by another sensor.");
         return;
       }
       // An empty zone ends manual holds and the occupancy claims that went with them (the manual-off-then-leave case must not relight).
       const released = releaseClaims(rt, rt.model.luminairesByZone.get(zoneId) ?? [], (level) => level === "manual" || level === "sensor", undefined, systemCause(origin, "zone-vacant"), at);
       const outcome = `${zoneName(rt.model, zoneId)} vacant: manual holds and sensor claims ended; ${released} luminaire${released === 1 ? "" : "s"} changed.`;
-      report("zone-vacant", p.device, zoneId, { ruleId: null, actionId: null, type: "release-claims", outcome });
+      reportSystem(rt, at, origin, "zone-vacant", p.device, zoneId, { ruleId: null, actionId: null, type: "release-claims", outcome });
       return;
     }
     case "relay-off": {
       const name = deviceName(rt.model, p.device);
       if (!rt.state.relays[p.device]) {
-        report("relay-time-up", p.device, false, null, `${name} was already off.`);
+        reportSystem(rt, at, origin, "relay-time-up", p.device, false, null, `${name} was already off.`);
         return;
       }
       const cause = systemCause(origin, "relay-time-up");
       rt.state.relays[p.device] = false;
       rt.out.changes.push(withCause(cause, { at, kind: "relay" as const, deviceId: p.device, isOn: false }));
       sendRelay(rt, p.device, false, cause, at);
-      report("relay-time-up", p.device, false, { ruleId: null, actionId: null, type: "relay-off", outcome: `${name} off: its on-time ran out.` });
+      reportSystem(rt, at, origin, "relay-time-up", p.device, false, { ruleId: null, actionId: null, type: "relay-off", outcome: `${name} off: its on-time ran out.` });
       return;
     }
     case "hold-end": {
@@ -52,7 +54,7 @@ export function fireSystemTimer(rt: Runtime, p: SystemPayload, origin: string, a
       rescheduleHoldEnd(rt, p.zone);
       const label = p.zone.startsWith("device:") ? deviceName(rt.model, members[0]) : zoneName(rt.model, p.zone);
       const outcome = `Manual hold on ${label} ended; ${released} luminaire${released === 1 ? "" : "s"} changed.`;
-      report("hold-ended", null, p.zone, { ruleId: null, actionId: null, type: "release-claims", outcome });
+      reportSystem(rt, at, origin, "hold-ended", null, p.zone, { ruleId: null, actionId: null, type: "release-claims", outcome });
       return;
     }
   }

@@ -44,8 +44,9 @@ type RunState = {
   relays: Map<string, boolean>;
   mode: string;
   isEmergency: boolean;
-  zoneSums: Map<string, number>;
   zoneSeries: Map<string, StepSeries>;
+  /** Per luminaire: its zone's running sum of levels and series (the zone line is the mean of its luminaires). */
+  zoneOf: Map<string, { sum: number; members: number; series: StepSeries }>;
   relaySeries: Map<string, StepSeries>;
 };
 
@@ -86,10 +87,13 @@ export function createReplay(options: ReplayOptions) {
   const runs: RunState[] = options.runs.map((spec) => {
     const rules = Array.isArray(spec.rules) ? buildRuleIndex(spec.rules) : spec.rules;
     const zoneSeries = new Map<string, StepSeries>();
-    for (const zoneId of luminairesByZone.keys()) {
+    const zoneOf = new Map<string, { sum: number; members: number; series: StepSeries }>();
+    for (const [zoneId, members] of luminairesByZone) {
       const s = createStepSeries(window.from, window.to);
       s.add(window.from, 0);
       zoneSeries.set(zoneId, s);
+      const acc = { sum: 0, members: members.length, series: s };
+      for (const id of members) zoneOf.set(id, acc);
     }
     const relaySeries = new Map<string, StepSeries>();
     for (const r of relays) {
@@ -108,8 +112,8 @@ export function createReplay(options: ReplayOptions) {
       relays: new Map(),
       mode: initialMode,
       isEmergency: false,
-      zoneSums: new Map(),
       zoneSeries,
+      zoneOf,
       relaySeries,
     };
   });
@@ -165,12 +169,10 @@ export function createReplay(options: ReplayOptions) {
       if (ch.kind === "level") {
         const from = run.levels.get(ch.deviceId) ?? 0;
         run.levels.set(ch.deviceId, ch.to);
-        const zoneId = devices.get(ch.deviceId)?.zoneId;
-        const members = zoneId ? luminairesByZone.get(zoneId) : undefined;
-        if (zoneId && members) {
-          const sum = (run.zoneSums.get(zoneId) ?? 0) + ch.to - from;
-          run.zoneSums.set(zoneId, sum);
-          run.zoneSeries.get(zoneId)?.add(ch.at, Math.round((sum / members.length) * 10) / 10);
+        const zone = run.zoneOf.get(ch.deviceId);
+        if (zone) {
+          zone.sum += ch.to - from;
+          zone.series.add(ch.at, Math.round((zone.sum / zone.members) * 10) / 10);
         }
       } else if (ch.kind === "relay") {
         run.relays.set(ch.deviceId, ch.isOn);
