@@ -1,10 +1,10 @@
 import { asc, count, eq, inArray, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
-import { getLiveState, ingestEvents, loadEngineInput, openLive } from "@/db/queries/live";
-import { devices, engineStates, engineSteps, events, gatewayCommands } from "@/db/schema";
+import { getLiveState, ingestEvents, loadEngineInput, openLive, writeIngested } from "@/db/queries/live";
+import { devices, engineStates, engineSteps, events, gatewayCommands, noticesOutbox, ruleSets, ruleSetVersions } from "@/db/schema";
 import { DEMO_SITE_ID } from "@/db/seed/demo-site";
-import type { DeviceEvent } from "@/lib/bus/types";
+import type { DeviceEvent, GatewayCommand, Notice, Step } from "@/lib/bus/types";
 import { seedDemoSite } from "./helpers";
 
 const base = Date.parse("2026-06-20T15:00:00Z");
@@ -132,6 +132,59 @@ describe("the store's plain-SQL writes", () => {
     await db.delete(engineSteps).where(eq(engineSteps.seq, after.seq));
   });
 
+  it("store every text byte for byte as JSON.stringify and Drizzle would: unicode, quotes, backslashes, extreme numbers", async () => {
+    const db = getDb();
+    // Awkward text: quotes, backslashes, control and separator characters, accents, CJK, an astral emoji, a lone surrogate.
+    const text = 'say "hi" \\ back\\slash \u0001 \u2028 \u00e9t\u00e9 \u65e5\u672c \u{1F600} lone \ud800 end';
+    const numbers = [1e21, 5e-324, -0, 1.7976931348623157e308, 0.1 + 0.2, -123.456e-10, Number.MAX_SAFE_INTEGER];
+    const at = base + 90 * 60_000;
+    const command = { at, source: 1, destination: 0xc001, addressing: "group", message: { type: "scene-recall", scene: 3 }, tid: 7, ttl: 5, transition: null, bytes: "82 42", note: text, numbers } as unknown as GatewayCommand;
+    const notice = { at, dedupeKey: `bytes-${text}`, recipient: "managers", channels: ["push", text], text, kind: "other", zoneId: null } as unknown as Notice;
+    const step = (i: number): Step =>
+      ({
+        input: { eventId: `bytes-${i}` },
+        at: at + i,
+        isDuplicate: false,
+        changes: [{ what: text, numbers }],
+        commands: i === 0 ? [command] : [],
+        notices: i === 0 ? [notice] : [],
+        actions: [],
+        fired: [],
+        matched: 0,
+        trace: [{ at, origin: text, trigger: { key: null, type: "event", device: null, value: numbers }, rules: [], actions: [], note: text }],
+      }) as unknown as Step;
+    const list: DeviceEvent[] = [
+      { id: "bytes-0", siteId: DEMO_SITE_ID, at, device: `${DEMO_SITE_ID}-dev-climate-workshop`, kind: "temperature", value: 1e21 },
+      { id: "bytes-1 lone \ud800", siteId: DEMO_SITE_ID, at: at + 1, device: `${DEMO_SITE_ID}-dev-contact-back`, kind: "contact", value: text },
+    ];
+    const steps = [step(0), step(1)];
+    const written = await db.transaction((tx) => writeIngested(tx, { siteId: DEMO_SITE_ID, source: "import", versionId: null, events: list, steps, receivedAt: at }));
+    const seqs = written.accepted.map((a) => a.stepSeq);
+    const raw = async (sql: string, args: (string | number)[]) => (await db.$client.execute({ sql, args })).rows.map((r) => Array.from({ length: r.length }, (_, i) => r[i]));
+    const stored = await raw(`select output, typeof(output) from engine_steps where seq in (${seqs.join(",")}) order by seq`, []);
+    expect(stored).toEqual(steps.map((s) => [JSON.stringify({ changes: s.changes, commands: s.commands, notices: s.notices, trace: s.trace }), "text"]));
+    expect(await raw("select command from gateway_commands where seq = ?", [written.commands[0].seq])).toEqual([[JSON.stringify(command)]]);
+    // An event id with a lone surrogate is stored as binding stores it (U+FFFD, valid UTF-8) and reads back.
+    expect(await raw("select event_id, value from events where site_id = ? and event_id like 'bytes-%' order by seq", [DEMO_SITE_ID])).toEqual([
+      ["bytes-0", "1e+21"],
+      ["bytes-1 lone \ufffd", JSON.stringify(text)],
+    ]);
+
+    // The outbox row is the one Drizzle writes for the same notice (but for id, the key and created_at).
+    await db.insert(noticesOutbox).values({ siteId: DEMO_SITE_ID, dedupeKey: "bytes-drizzle", recipient: notice.recipient, channels: notice.channels, text: notice.text, at: notice.at, kind: notice.kind, zoneId: notice.zoneId, url: `/sites/${DEMO_SITE_ID}` });
+    const outbox = await raw("select * from notices_outbox where dedupe_key in (?, ?) order by id", [notice.dedupeKey.toWellFormed(), "bytes-drizzle"]);
+    const columns = (await db.$client.execute("select * from notices_outbox limit 0")).columns;
+    const comparable = (row: unknown[]) => Object.fromEntries(columns.map((c, i) => [c, row[i]]).filter(([c]) => !["id", "dedupe_key", "created_at"].includes(c as string)));
+    expect(outbox).toHaveLength(2);
+    expect(comparable(outbox[0])).toEqual(comparable(outbox[1]));
+    const createdAt = outbox.map((r) => Number(r[columns.indexOf("created_at")]));
+    expect(Math.abs(createdAt[1] - createdAt[0])).toBeLessThan(60_000);
+    // Sent again (a later batch with the same notice): ON CONFLICT keeps the first.
+    const again = await db.transaction((tx) => writeIngested(tx, { siteId: DEMO_SITE_ID, source: "import", versionId: null, events: [{ ...list[0], id: "bytes-2", at: at + 2 }], steps: [{ ...step(0), commands: [] }], receivedAt: at }));
+    expect(again.accepted).toHaveLength(1);
+    expect(await raw("select count(*) from notices_outbox where dedupe_key = ?", [notice.dedupeKey.toWellFormed()])).toEqual([[1]]);
+  });
+
   it("a fault in the commands INSERT, after events and steps went in, stores nothing", async () => {
     const db = getDb();
     const before = await counts();
@@ -168,9 +221,33 @@ describe("the live store's site input", () => {
       expect(changed.input).not.toBe(first.input);
       expect(changed.input).toEqual((await loadEngineInput(DEMO_SITE_ID)).input);
       expect(changed.input.devices.find((d) => d.id === id)?.name).toBe("Window light sensor (moved)");
+      // Same active version: its rules (never rewritten) are not read or indexed again.
+      expect(changed.rules).toBe(first.rules);
     } finally {
       await db.update(devices).set({ name: device.name }).where(eq(devices.id, id));
     }
     expect((await open()).input).toEqual(loaded.input);
+  });
+
+  it("takes the rules of a newly activated version, and the old ones again when it is switched back", async () => {
+    const db = getDb();
+    const open = () => db.transaction((tx) => openLive(tx, DEMO_SITE_ID));
+    const before = await open();
+    const loaded = await loadEngineInput(DEMO_SITE_ID);
+    const oneRule = loaded.rules.slice(0, 1);
+    await db.insert(ruleSetVersions).values({ id: "live-input-v2", siteId: DEMO_SITE_ID, number: 999, graph: {}, rules: oneRule });
+    await db.update(ruleSets).set({ activeVersionId: "live-input-v2" }).where(eq(ruleSets.siteId, DEMO_SITE_ID));
+    try {
+      const switched = await open();
+      expect(switched.versionId).toBe("live-input-v2");
+      expect(switched.rules.rules.map((r) => r.json)).toEqual(oneRule);
+      expect(switched.input).toEqual(before.input);
+    } finally {
+      await db.update(ruleSets).set({ activeVersionId: loaded.versionId }).where(eq(ruleSets.siteId, DEMO_SITE_ID));
+      await db.delete(ruleSetVersions).where(eq(ruleSetVersions.id, "live-input-v2"));
+    }
+    const back = await open();
+    expect(back.versionId).toBe(loaded.versionId);
+    expect(back.rules.rules.map((r) => r.json)).toEqual(loaded.rules);
   });
 });
