@@ -231,16 +231,18 @@ async function main() {
     return result!;
   };
   console.log("");
-  // BENCH_PROFILE=file.cpuprofile: a CPU profile of B alone (open it in a browser's devtools).
+  // BENCH_ONLY=B or C runs one of the two; BENCH_PROFILE=file.cpuprofile profiles what runs (open it in a browser's devtools).
+  const only = process.env.BENCH_ONLY ?? "";
   const profile = process.env.BENCH_PROFILE ? await startProfile() : null;
-  await measure("B. Replay, 200 rules (replayLog: pages + engine + timeline + series)", [active]);
-  if (profile) await profile.stop(process.env.BENCH_PROFILE!);
-  if (process.env.BENCH_ONLY === "B") {
+  if (only !== "C") await measure("B. Replay, 200 rules (replayLog: pages + engine + timeline + series)", [active]);
+  if (only === "B") {
+    if (profile) await profile.stop(process.env.BENCH_PROFILE!);
     clearInterval(sampler);
     client.close();
     return;
   }
   const cmp = await measure("C. Compare, 200 rules vs another 200", [active, other]);
+  if (profile) await profile.stop(process.env.BENCH_PROFILE!);
   clearInterval(sampler);
   console.log(`   Compare found ${fmt(cmp.compare!.root)} steps deciding differently, ${fmt(cmp.compare!.knockOn)} following from them.`);
   console.log(`\npeak RSS ${mib(peakRss)} MiB over the whole run; the timeline, differences and series are capped, and one page of ${PAGE} rows is in memory at a time.`);

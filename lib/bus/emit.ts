@@ -18,18 +18,17 @@ export type Addressed = { deviceId: string; to: number; isChanged: boolean };
  */
 export function planLevelCommands(rt: Runtime, addressed: Addressed[], message: LevelMessage, cause: Cause, at: number): void {
   if (addressed.length === 0) return;
-  const zoneOf = (a: Addressed) => rt.model.devices.get(a.deviceId)?.zoneId ?? null;
   // Usually one action reaches one zone: no grouping needed.
-  const first = zoneOf(addressed[0]);
+  const first = zoneOfAddressed(rt, addressed[0]);
   let isOneZone = true;
-  for (let i = 1; i < addressed.length && isOneZone; i++) isOneZone = zoneOf(addressed[i]) === first;
+  for (let i = 1; i < addressed.length && isOneZone; i++) isOneZone = zoneOfAddressed(rt, addressed[i]) === first;
   if (isOneZone) {
     planZone(rt, first, addressed, message, cause, at);
     return;
   }
   const byZone = new Map<string | null, Addressed[]>();
   for (const a of addressed) {
-    const zoneId = zoneOf(a);
+    const zoneId = zoneOfAddressed(rt, a);
     const list = byZone.get(zoneId);
     if (list) list.push(a);
     else byZone.set(zoneId, [a]);
@@ -37,6 +36,10 @@ export function planLevelCommands(rt: Runtime, addressed: Addressed[], message: 
   // Zones in site order, luminaires without a zone last.
   const zoneIds = [...byZone.keys()].sort((a, b) => zoneRank(rt, a) - zoneRank(rt, b));
   for (const zoneId of zoneIds) planZone(rt, zoneId, byZone.get(zoneId)!, message, cause, at);
+}
+
+function zoneOfAddressed(rt: Runtime, a: Addressed): string | null {
+  return rt.model.devices.get(a.deviceId)?.zoneId ?? null;
 }
 
 function planZone(rt: Runtime, zoneId: string | null, inZone: Addressed[], message: LevelMessage, cause: Cause, at: number) {

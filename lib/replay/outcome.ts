@@ -33,6 +33,47 @@ export function effectsOf(step: Step, names: Names): string[] {
   return out;
 }
 
+/**
+ * The same items as effectsOf, in the same order, as keys that hold every field
+ * a sentence is made of (ids rather than names): cheaper to make and to compare,
+ * so a Compare builds sentences only for the differences it keeps.
+ */
+export function effectKeys(step: Step): string[] {
+  const out: string[] = [];
+  for (const a of step.actions) out.push("a\u0000" + (a.actionId ?? a.type) + "\u0000" + a.outcome);
+  for (const c of step.changes) {
+    switch (c.kind) {
+      case "level":
+        out.push("l\u0000" + c.deviceId + "\u0000" + c.from + "\u0000" + c.to);
+        break;
+      case "relay":
+        out.push("r\u0000" + c.deviceId + "\u0000" + c.isOn);
+        break;
+      case "mode":
+        out.push("m\u0000" + c.from + "\u0000" + c.to);
+        break;
+      case "emergency":
+        out.push(c.isActive ? "e\u0000" + c.scene : "e\u0000cleared");
+        break;
+    }
+  }
+  for (const n of step.notices) out.push("n\u0000" + n.recipient + "\u0000" + n.channels.join(",") + "\u0000" + n.text);
+  return out;
+}
+
+/** Indexes of the items of `a` with no partner left in `b` (a multiset difference), in `a`'s order. Steps hold a handful: no map needed. */
+export function unmatched(a: string[], b: string[]): number[] {
+  const used: boolean[] = new Array(b.length).fill(false);
+  const out: number[] = [];
+  for (let i = 0; i < a.length; i++) {
+    let j = 0;
+    while (j < b.length && (used[j] || b[j] !== a[i])) j++;
+    if (j < b.length) used[j] = true;
+    else out.push(i);
+  }
+  return out;
+}
+
 export function hasEffects(step: Step): boolean {
   return step.changes.length > 0 || step.notices.length > 0 || step.actions.length > 0;
 }

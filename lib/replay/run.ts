@@ -4,7 +4,7 @@ import type { DeviceEvent, EngineState, Step, TraceEntry } from "@/lib/bus/types
 import { isLuminaire } from "@/lib/catalogue/device-kinds";
 import type { RuleJson } from "@/lib/rules/compile";
 import { buildRuleIndex, type RuleIndex } from "@/lib/rules/rule-index";
-import { effectsOf, hasEffects, isSameOutcome, onlyIn, type Names } from "./outcome";
+import { effectKeys, effectsOf, hasEffects, isSameOutcome, unmatched, type Names } from "./outcome";
 import { createStepSeries, type StepSeries } from "./series";
 import type { Difference, ReplayResult, RunCounts, RunResult, StepInput, TimelineEntry } from "./types";
 
@@ -195,17 +195,21 @@ export function createReplay(options: ReplayOptions) {
   function compare(item: Input, a: Step, b: Step, wasParted: boolean) {
     if (!hasEffects(a) && !hasEffects(b)) return;
     if (isSameOutcome(a, b)) return;
-    const ea = effectsOf(a, names);
-    const eb = effectsOf(b, names);
-    const onlyA = onlyIn(ea, eb);
-    const onlyB = onlyIn(eb, ea);
-    if (!onlyA.length && !onlyB.length) return;
+    const ka = effectKeys(a);
+    const kb = effectKeys(b);
+    const missA = unmatched(ka, kb);
+    const missB = unmatched(kb, ka);
+    if (!missA.length && !missB.length) return;
     if (wasParted) knockOn++;
     else root++;
     if (differences.length >= DIFFERENCE_CAP) {
       isDiffCut = true;
       return;
     }
+    const sa = effectsOf(a, names);
+    const sb = effectsOf(b, names);
+    const onlyA = missA.map((i) => sa[i]);
+    const onlyB = missB.map((i) => sb[i]);
     const difference: Difference = { ...stepInput(item), isKnockOn: wasParted, onlyA, onlyB, traceA: [], traceB: [] };
     differences.push(difference);
     traceFor([a, b], ([traceA, traceB]) => {
@@ -234,15 +238,19 @@ export function createReplay(options: ReplayOptions) {
   function run(item: Input) {
     if (segment.length === 0 && mayWantTraces()) saved = runs.map((r) => r.engine.getState());
     if (saved) segment.push(item);
-    const steps = runs.map((r) => go(r.engine, item));
     const wasParted = partedLevels.size > 0 || partedRelays.size > 0 || isModeParted || isEmergencyParted;
-    steps.forEach((step, i) => {
-      if (options.onStep) options.onStep(i, stepInput(item), step);
-      record(runs[i], item, step);
-    });
-    if (steps.length === 2) {
-      compare(item, steps[0], steps[1], wasParted);
-      updateParted(steps[0], steps[1]);
+    // Plain loops: this runs once per event of a year.
+    const a = go(runs[0].engine, item);
+    const b = runs.length === 2 ? go(runs[1].engine, item) : null;
+    if (options.onStep) {
+      options.onStep(0, stepInput(item), a);
+      if (b) options.onStep(1, stepInput(item), b);
+    }
+    record(runs[0], item, a);
+    if (b) {
+      record(runs[1], item, b);
+      compare(item, a, b, wasParted);
+      updateParted(a, b);
     }
     if (segment.length >= segmentSize) fillTraces();
   }
