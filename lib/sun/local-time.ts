@@ -56,16 +56,17 @@ const BLOCK_MS = 6 * 60 * MINUTE_MS;
 const spanOffsets = new Map<string, Map<number, number | null>>();
 const blockOffsets = new Map<string, Map<number, number | null>>();
 
-function blockOffset(ms: number, timeZone: string): number | null {
-  let zone = blockOffsets.get(timeZone);
-  if (!zone) blockOffsets.set(timeZone, (zone = new Map()));
-  const block = Math.floor(ms / BLOCK_MS);
-  let offset = zone.get(block);
+/** The offset holding through the whole stretch of `length` ms around `ms`, or null if it changes inside (remembered per zone). */
+function steadyOffset(cache: Map<string, Map<number, number | null>>, length: number, ms: number, timeZone: string): number | null {
+  let zone = cache.get(timeZone);
+  if (!zone) cache.set(timeZone, (zone = new Map()));
+  const stretch = Math.floor(ms / length);
+  let offset = zone.get(stretch);
   if (offset === undefined) {
-    const start = offsetAt(block * BLOCK_MS, timeZone);
-    offset = start === offsetAt((block + 1) * BLOCK_MS - 1, timeZone) && start % MINUTE_MS === 0 ? start : null;
+    const start = offsetAt(stretch * length, timeZone);
+    offset = start === offsetAt((stretch + 1) * length - 1, timeZone) && start % MINUTE_MS === 0 ? start : null;
     if (zone.size >= 20_000) zone.clear();
-    zone.set(block, offset);
+    zone.set(stretch, offset);
   }
   return offset;
 }
@@ -76,19 +77,7 @@ function offsetAt(ms: number, timeZone: string): number {
 }
 
 function spanOffset(ms: number, timeZone: string): number | null {
-  const whole = blockOffset(ms, timeZone);
-  if (whole !== null) return whole;
-  let zone = spanOffsets.get(timeZone);
-  if (!zone) spanOffsets.set(timeZone, (zone = new Map()));
-  const span = Math.floor(ms / SPAN_MS);
-  let offset = zone.get(span);
-  if (offset === undefined) {
-    const start = offsetAt(span * SPAN_MS, timeZone);
-    offset = start === offsetAt((span + 1) * SPAN_MS - 1, timeZone) && start % MINUTE_MS === 0 ? start : null;
-    if (zone.size >= 20_000) zone.clear();
-    zone.set(span, offset);
-  }
-  return offset;
+  return steadyOffset(blockOffsets, BLOCK_MS, ms, timeZone) ?? steadyOffset(spanOffsets, SPAN_MS, ms, timeZone);
 }
 
 const WEEKDAY_BY_UTC_DAY: Weekday[] = ["sun", "mon", "tue", "wed", "thu", "fri", "sat"];
