@@ -109,13 +109,5 @@ export function isSameOutcome(a: Step, b: Step): boolean {
 
 /** Items in `a` and not in `b`, counting repeats (a multiset difference), in `a`'s order. */
 export function onlyIn(a: string[], b: string[]): string[] {
-  const left = new Map<string, number>();
-  for (const x of b) left.set(x, (left.get(x) ?? 0) + 1);
-  const out: string[] = [];
-  for (const x of a) {
-    const n = left.get(x) ?? 0;
-    if (n > 0) left.set(x, n - 1);
-    else out.push(x);
-  }
-  return out;
+  return unmatched(a, b).map((i) => a[i]);
 }

@@ -133,7 +133,9 @@ export function createReplay(options: ReplayOptions) {
   let saved: EngineState[] | null = null;
   let segment: Input[] = [];
   let holes: Hole[] = [];
-  const mayWantTraces = () => !traceAll && (runs.some((r) => r.timeline.length < TIMELINE_CAP) || (runs.length === 2 && differences.length < DIFFERENCE_CAP));
+  // The caps only fill up: once no trace can be wanted, none ever will be (and the question is not asked per event again).
+  let isTracing = !traceAll;
+  const mayWantTraces = () => (isTracing &&= runs.some((r) => r.timeline.length < TIMELINE_CAP) || (runs.length === 2 && differences.length < DIFFERENCE_CAP));
 
   /** What a timeline line or a difference says the step ran for; made only for those (not a new object per event). */
   const stepInput = (item: Input): StepInput =>
