@@ -20,15 +20,16 @@ const deviceIndex = new Map();
 const kindIndex = new Map();
 
 let credit = ahead;
+let stopping = false;
 let wake = null;
 parentPort.on("message", (message) => {
-  if (message === "more") {
-    credit++;
-    if (wake) {
-      const resolve = wake;
-      wake = null;
-      resolve();
-    }
+  if (message === "more") credit++;
+  else if (message === "stop") stopping = true;
+  else return;
+  if (wake) {
+    const resolve = wake;
+    wake = null;
+    resolve();
   }
 });
 
@@ -52,7 +53,7 @@ const PAGE_SQL = `SELECT json_group_array(json_array(seq, event_id, at, device, 
 async function main() {
   let at = from;
   let seq = -1;
-  for (;;) {
+  while (!stopping) {
     const rs = await client.execute({ sql: PAGE_SQL, args: [siteId, at, at, seq, to, pageSize] });
     const rows = JSON.parse(rs.rows[0][0]);
     const n = rows.length;
@@ -74,14 +75,23 @@ async function main() {
     }
     at = times[n - 1];
     seq = rows[n - 1][0];
-    while (credit <= 0) await new Promise((resolve) => (wake = resolve));
+    while (credit <= 0 && !stopping) await new Promise((resolve) => (wake = resolve));
+    if (stopping) return;
     credit--;
     parentPort.postMessage({ kind: "page", ids, times, devices, kinds, values, newDevices, newKinds }, [times.buffer, devices.buffer, kinds.buffer]);
     if (n < pageSize) break;
   }
-  parentPort.postMessage({ kind: "end" });
+  if (!stopping) parentPort.postMessage({ kind: "end" });
 }
 
+// The thread always ends on its own: the client closed, then the port, so its
+// event loop empties and it exits with code 0. Never Worker.terminate() it: a
+// termination lands as an exception pending in the thread, and the SQLite
+// client's native finalisers abort the whole process when they run with one
+// pending (seen in CI). The other side asks with "stop" instead.
 main()
   .catch((error) => parentPort.postMessage({ kind: "error", message: error instanceof Error ? error.message : String(error) }))
-  .finally(() => client.close());
+  .finally(() => {
+    client.close();
+    parentPort.close();
+  });

@@ -53,15 +53,31 @@ export function readLogPagesAhead({ siteId, from, to, pageSize = 2000 }: { siteI
     failure = error;
     notify();
   });
-  worker.on("exit", (code) => {
-    if (code !== 0 && !failure) failure = new Error(`The log reader stopped (exit code ${code}).`);
-    notify();
-  });
+  let exited = false;
+  const exit = new Promise<void>((resolve) =>
+    worker.on("exit", (code) => {
+      exited = true;
+      if (code !== 0 && !failure) failure = new Error(`The log reader stopped (exit code ${code}).`);
+      notify();
+      resolve();
+    }),
+  );
+  // Ask the thread to stop and wait until it has: it finishes the statement in
+  // hand, closes its connection and exits by itself. Worker.terminate() would
+  // abort the whole process when it lands while the SQLite client is busy (see
+  // the note at the end of db/log-reader-thread.mjs).
+  let closed = false;
+  const stop = async () => {
+    closed = true;
+    if (exited) return;
+    worker.postMessage("stop");
+    await exit;
+  };
   async function* pages(): AsyncGenerator<DeviceEvent[]> {
     const deviceNames: string[] = [];
     const kindNames: string[] = [];
     try {
-      for (;;) {
+      while (!closed) {
         while (!inbox.length && !failure) await new Promise<void>((resolve) => (wake = resolve));
         const m = inbox.shift();
         if (!m) throw failure!;
@@ -75,11 +91,11 @@ export function readLogPagesAhead({ siteId, from, to, pageSize = 2000 }: { siteI
         yield page;
       }
     } finally {
-      await worker.terminate();
+      await stop();
     }
   }
   // close(): for a caller that stops before its first page (a generator not started never reaches its finally).
-  return Object.assign(pages(), { close: async () => void (await worker.terminate()) });
+  return Object.assign(pages(), { close: stop });
 }
 
 export type ReplayLogOptions = {
