@@ -53,10 +53,8 @@ export function readLogPagesAhead({ siteId, from, to, pageSize = 2000 }: { siteI
     failure = error;
     notify();
   });
-  let exited = false;
   const exit = new Promise<void>((resolve) =>
     worker.on("exit", (code) => {
-      exited = true;
       if (code !== 0 && !failure) failure = new Error(`The log reader stopped (exit code ${code}).`);
       notify();
       resolve();
@@ -69,8 +67,7 @@ export function readLogPagesAhead({ siteId, from, to, pageSize = 2000 }: { siteI
   let closed = false;
   const stop = async () => {
     closed = true;
-    if (exited) return;
-    worker.postMessage("stop");
+    worker.postMessage("stop"); // dropped if it has already exited
     await exit;
   };
   async function* pages(): AsyncGenerator<DeviceEvent[]> {
